@@ -1,0 +1,15 @@
+package reckoner;
+
+import java.util.List;
+import reckoner.arith.ArithTool;
+import reckoner.tool.Tool;
+
+/** The tool versions this build serves, listed explicitly. A new version is one more line. */
+public final class Tools {
+  private Tools() {}
+
+  public static List<Tool> standard() {
+    return List.of(
+        new ArithTool());
+  }
+}

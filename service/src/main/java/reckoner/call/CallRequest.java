@@ -1,0 +1,26 @@
+package reckoner.call;
+
+import java.util.Objects;
+import java.util.OptionalInt;
+import tools.jackson.databind.JsonNode;
+
+/**
+ * One call as a caller sent it: a tool name, a version (empty for the newest), the JSON
+ * arguments, and the tags the call travels with. Immutable.
+ *
+ * @param asOf the reference time from a header ({@code Reckoner-As-Of}); it fills the tool's
+ *     {@code as_of} argument when the arguments lack one and the tool takes one; may be null
+ * @param run caller's run tag, may be null
+ * @param ref caller's ref tag, may be null
+ */
+public record CallRequest(String tool, OptionalInt version, JsonNode args, String asOf, String run, String ref) {
+  public CallRequest {
+    Objects.requireNonNull(tool, "tool");
+    Objects.requireNonNull(version, "version");
+    Objects.requireNonNull(args, "args");
+  }
+
+  public static CallRequest of(String tool, int version, JsonNode args) {
+    return new CallRequest(tool, OptionalInt.of(version), args, null, null, null);
+  }
+}

@@ -1,0 +1,130 @@
+package reckoner.call;
+
+import java.math.BigDecimal;
+import java.time.Clock;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.stream.Collectors;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
+import reckoner.spec.ToolCatalog;
+import reckoner.tool.Answer;
+import reckoner.tool.Arguments;
+import reckoner.tool.CallContext;
+import reckoner.tool.ErrorCode;
+import reckoner.tool.ResultText;
+import reckoner.tool.ToolError;
+import reckoner.tool.ToolException;
+import reckoner.tool.ToolId;
+import tools.jackson.databind.JsonNode;
+
+/**
+ * Runs calls: finds the tool version, checks the arguments against its schema, computes the
+ * canonical form once, invokes the tool, and turns every kind of failure into an {@link Outcome}.
+ * This is the one place where a caller's bad input becomes an error value. Thread-safe.
+ */
+public final class Invoker {
+  /** The argument name that carries the reference time in every tool that takes one. */
+  public static final String AS_OF = "as_of";
+
+  private static final Logger LOG = LoggerFactory.getLogger(Invoker.class);
+
+  private final ToolCatalog catalog;
+  private final CallContext context;
+  private final InvocationIds ids;
+
+  public Invoker(ToolCatalog catalog, Clock clock) {
+    this.catalog = catalog;
+    this.context = new CallContext(clock);
+    this.ids = new InvocationIds(clock);
+  }
+
+  public ToolCatalog catalog() {
+    return catalog;
+  }
+
+  /** Runs one call. Never throws for anything a caller sent. */
+  public Outcome invoke(CallRequest request) {
+    long start = System.nanoTime();
+    String id = ids.next().toString();
+    Optional<ToolCatalog.Entry> entry = resolve(request);
+    if (entry.isEmpty()) {
+      return failed(id, Optional.empty(), Optional.empty(), unknownTool(request), start);
+    }
+    ToolId toolId = entry.get().tool().id();
+    Optional<String> violation = entry.get().validator().check(request.args());
+    if (violation.isPresent()) {
+      return failed(id, Optional.of(toolId), Optional.empty(),
+          ToolError.of(ErrorCode.INVALID_ARGUMENT, violation.get()), start);
+    }
+    Arguments canonical = null;
+    try {
+      Arguments args = toArguments(request.args());
+      if (request.asOf() != null && !args.has(AS_OF) && entry.get().spec().declaresArgument(AS_OF)) {
+        args = args.with(AS_OF, request.asOf());
+      }
+      canonical = entry.get().tool().canonicalize(args);
+      Answer answer = entry.get().tool().invoke(canonical, context);
+      Answer clean = new Answer(ResultText.clean(answer.text(), ResultText.DEFAULT_MAX_LENGTH),
+          answer.cacheable(), answer.clockReadAt(), answer.dataVersion());
+      return new Outcome(id, Optional.of(toolId), Optional.of(canonical), Optional.of(clean), Optional.empty(),
+          System.nanoTime() - start);
+    } catch (ToolException e) {
+      return failed(id, Optional.of(toolId), Optional.ofNullable(canonical), e.error(), start);
+    } catch (RuntimeException | StackOverflowError e) {
+      // A defect in a tool, not the caller's fault: log it whole, show the caller nothing of it.
+      LOG.error("tool {} failed on {}", toolId, request.args(), e);
+      return failed(id, Optional.of(toolId), Optional.ofNullable(canonical),
+          ToolError.of(ErrorCode.INTERNAL_ERROR, "the tool failed unexpectedly; the failure is logged as " + id), start);
+    }
+  }
+
+  private Optional<ToolCatalog.Entry> resolve(CallRequest request) {
+    if (!reckoner.tool.ToolId.isValidName(request.tool())) {
+      return Optional.empty();
+    }
+    return request.version().isPresent()
+        ? catalog.find(ToolId.of(request.tool(), request.version().getAsInt()))
+        : catalog.newest(request.tool());
+  }
+
+  private ToolError unknownTool(CallRequest request) {
+    List<Integer> versions = ToolId.isValidName(request.tool()) ? catalog.versions(request.tool()) : List.of();
+    String asked = request.tool() + request.version().stream().mapToObj(v -> "@" + v).collect(Collectors.joining());
+    if (!versions.isEmpty()) {
+      return new ToolError(ErrorCode.UNKNOWN_TOOL, "no version " + request.version().getAsInt() + " of tool '"
+          + request.tool() + "'; served versions: " + versions,
+          versions.stream().map(v -> request.tool() + "@" + v).toList());
+    }
+    List<String> names = catalog.all().stream().map(e -> e.tool().id().name()).distinct().toList();
+    return ToolError.of(ErrorCode.UNKNOWN_TOOL, "no tool '" + ResultText.clean(asked, 60) + "'; served tools: "
+        + String.join(", ", names));
+  }
+
+  private Outcome failed(String id, Optional<ToolId> tool, Optional<Arguments> canonical, ToolError error, long start) {
+    return new Outcome(id, tool, canonical, Optional.empty(), Optional.of(error), System.nanoTime() - start);
+  }
+
+  /** JSON scalars to argument values; the schema has already refused anything else. */
+  static Arguments toArguments(JsonNode args) throws ToolException {
+    Map<String, Object> values = new LinkedHashMap<>();
+    for (Map.Entry<String, JsonNode> e : args.properties()) {
+      JsonNode v = e.getValue();
+      Object value;
+      if (v.isString()) {
+        value = v.stringValue();
+      } else if (v.isBoolean()) {
+        value = v.booleanValue();
+      } else if (v.isNumber()) {
+        value = v.isIntegralNumber() ? new BigDecimal(v.bigIntegerValue()) : v.decimalValue();
+      } else {
+        throw new ToolException(ErrorCode.INVALID_ARGUMENT,
+            "argument '" + e.getKey() + "' must be a string, number or boolean");
+      }
+      values.put(e.getKey(), value);
+    }
+    return Arguments.of(values);
+  }
+}

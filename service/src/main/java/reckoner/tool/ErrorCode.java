@@ -1,0 +1,54 @@
+package reckoner.tool;
+
+import java.util.Locale;
+
+/**
+ * The stable error codes of the contract. Their {@link #wireName()} is what callers see and match
+ * on; it never changes for a published code.
+ */
+public enum ErrorCode {
+  // Request-level codes.
+  INVALID_ARGUMENT,
+  UNKNOWN_TOOL,
+  UNAUTHORIZED,
+  FORBIDDEN,
+  RATE_LIMITED,
+  PAYLOAD_TOO_LARGE,
+  UNAVAILABLE,
+  // HTTP-level codes that the contract leaves open (see README, "Errors").
+  UNKNOWN_ENDPOINT,
+  METHOD_NOT_ALLOWED,
+  UNSUPPORTED_MEDIA_TYPE,
+  NOT_ACCEPTABLE,
+  /** A defect on our side; never caused by input alone. Shows no internals. */
+  INTERNAL_ERROR,
+  // arith
+  SYNTAX_ERROR,
+  DOMAIN_ERROR,
+  OVERFLOW,
+  LIMIT_EXCEEDED,
+  // dates
+  INVALID_DATE,
+  INVALID_DURATION,
+  UNKNOWN_ZONE,
+  UNKNOWN_CALENDAR,
+  OUT_OF_RANGE,
+  // units
+  UNKNOWN_UNIT,
+  AMBIGUOUS_UNIT,
+  DIMENSION_MISMATCH,
+  // facts
+  NOT_FOUND;
+
+  private final String wireName = name().toLowerCase(Locale.ROOT);
+
+  /** The code as it appears on the wire, e.g. {@code syntax_error}. */
+  public String wireName() {
+    return wireName;
+  }
+
+  @Override
+  public String toString() {
+    return wireName;
+  }
+}

@@ -1,0 +1,25 @@
+package reckoner.tool;
+
+/**
+ * A small, deterministic function from arguments to one short line of text.
+ *
+ * <p>A call runs in two steps. {@link #canonicalize} turns the caller's arguments, structured or in
+ * the free {@code text} form, into one canonical structured form with defaults filled in, so that
+ * two spellings of one call give equal {@link Arguments}. {@link #invoke} then computes the answer
+ * from canonical arguments only. Both report a caller's bad input as a {@link ToolException}.
+ *
+ * <p>The arguments have already passed the version's JSON Schema ({@code tool-specs/NAME/VERSION.json})
+ * when either method sees them: unknown properties and wrong JSON types never reach a tool.
+ * Implementations are immutable and thread-safe, read no hidden input (clock, locale, time zone),
+ * and keep every call well under a millisecond through explicit limits on their input.
+ */
+public interface Tool {
+  /** This tool's name and version. */
+  ToolId id();
+
+  /** Returns the canonical structured form of {@code args}; never contains {@link Arguments#TEXT}. */
+  Arguments canonicalize(Arguments args) throws ToolException;
+
+  /** Computes the answer to canonical arguments, as returned by {@link #canonicalize}. */
+  Answer invoke(Arguments canonical, CallContext context) throws ToolException;
+}
