@@ -1,0 +1,147 @@
+package reckoner.config;
+
+import java.io.IOException;
+import java.io.Reader;
+import java.net.InetAddress;
+import java.net.UnknownHostException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.LinkedHashMap;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Properties;
+import java.util.Set;
+import java.util.TreeSet;
+
+/**
+ * The service's settings, validated once at start. Each setting has one name, used alike as a
+ * command-line flag ({@code --data-dir}), an environment variable ({@code RECKONER_DATA_DIR}) and
+ * a key in the optional properties file ({@code data-dir=...}). Precedence, highest first: flag,
+ * environment, file, default. Immutable.
+ *
+ * @param host address to listen on; loopback by default (no keys file: loopback only)
+ * @param port TCP port, 0 for any free port
+ * @param dataDir the directory that holds the ledger and {@code facts/}
+ * @param maxBodyBytes largest request body accepted, in bytes
+ * @param openAccess whether to listen on a non-loopback address without API keys (explicit opt-in)
+ */
+public record ServiceConfig(String host, int port, Path dataDir, long maxBodyBytes, boolean openAccess) {
+  /** Every setting with its default. The README's settings table lists the same. */
+  public static final Map<String, String> DEFAULTS = defaults();
+
+  public ServiceConfig {
+    if (port < 0 || port > 65535) {
+      throw new ConfigException("port must be between 0 and 65535 but was " + port);
+    }
+    if (maxBodyBytes < 1024 || maxBodyBytes > 256L * 1024 * 1024) {
+      throw new ConfigException("max-body-bytes must be between 1024 and 268435456 but was " + maxBodyBytes);
+    }
+    if (!openAccess && !isLoopback(host)) {
+      throw new ConfigException("refusing to listen on " + host + " without API keys: use a loopback host "
+          + "(127.0.0.1), or set open-access=true to serve every caller who can reach it");
+    }
+  }
+
+  private static Map<String, String> defaults() {
+    Map<String, String> d = new LinkedHashMap<>();
+    d.put("host", "127.0.0.1");
+    d.put("port", "8080");
+    d.put("data-dir", "./data");
+    d.put("max-body-bytes", "1048576");
+    d.put("open-access", "false");
+    return java.util.Collections.unmodifiableMap(d);
+  }
+
+  /** Builds the config from settings keyed by their names; unknown names and bad values fail, naming the setting. */
+  public static ServiceConfig from(Map<String, String> settings) {
+    Set<String> unknown = new TreeSet<>(settings.keySet());
+    unknown.removeAll(DEFAULTS.keySet());
+    if (!unknown.isEmpty()) {
+      throw new ConfigException("unknown setting(s) " + unknown + "; known: " + DEFAULTS.keySet());
+    }
+    Map<String, String> s = new LinkedHashMap<>(DEFAULTS);
+    s.putAll(settings);
+    return new ServiceConfig(
+        s.get("host").trim(),
+        integer(s, "port"),
+        Path.of(s.get("data-dir")),
+        longValue(s, "max-body-bytes"),
+        bool(s, "open-access"));
+  }
+
+  /**
+   * Merges the sources in precedence order: {@code file} (may be null), then the environment's
+   * {@code RECKONER_*} variables, then {@code flags}.
+   */
+  public static Map<String, String> merge(Path file, Map<String, String> env, Map<String, String> flags) {
+    Map<String, String> merged = new LinkedHashMap<>();
+    if (file != null) {
+      merged.putAll(readFile(file));
+    }
+    for (String name : DEFAULTS.keySet()) {
+      String v = env.get(envName(name));
+      if (v != null) {
+        merged.put(name, v);
+      }
+    }
+    merged.putAll(flags);
+    return merged;
+  }
+
+  /** {@code data-dir} is read from {@code RECKONER_DATA_DIR}. */
+  public static String envName(String setting) {
+    return "RECKONER_" + setting.toUpperCase(Locale.ROOT).replace('-', '_');
+  }
+
+  private static Map<String, String> readFile(Path file) {
+    Properties p = new Properties();
+    try (Reader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
+      p.load(r);
+    } catch (IOException e) {
+      throw new ConfigException("cannot read config file " + file + ": " + e.getMessage());
+    }
+    Map<String, String> m = new LinkedHashMap<>();
+    p.stringPropertyNames().forEach(k -> m.put(k.trim(), p.getProperty(k).trim()));
+    return m;
+  }
+
+  private static int integer(Map<String, String> s, String name) {
+    try {
+      return Integer.parseInt(s.get(name).trim());
+    } catch (NumberFormatException e) {
+      throw new ConfigException(name + " must be a whole number but was '" + s.get(name) + "'");
+    }
+  }
+
+  private static long longValue(Map<String, String> s, String name) {
+    try {
+      return Long.parseLong(s.get(name).trim());
+    } catch (NumberFormatException e) {
+      throw new ConfigException(name + " must be a whole number but was '" + s.get(name) + "'");
+    }
+  }
+
+  private static boolean bool(Map<String, String> s, String name) {
+    String v = s.get(name).trim().toLowerCase(Locale.ROOT);
+    if (!v.equals("true") && !v.equals("false")) {
+      throw new ConfigException(name + " must be true or false but was '" + s.get(name) + "'");
+    }
+    return v.equals("true");
+  }
+
+  static boolean isLoopback(String host) {
+    if (host.equals("localhost")) {
+      return true;
+    }
+    try {
+      // Only literal addresses are checked, so no name lookup happens here.
+      if (!host.matches("[0-9.]+|[0-9a-fA-F:]+|\\[[0-9a-fA-F:]+\\]")) {
+        return false;
+      }
+      return InetAddress.getByName(host.replace("[", "").replace("]", "")).isLoopbackAddress();
+    } catch (UnknownHostException e) {
+      return false;
+    }
+  }
+}

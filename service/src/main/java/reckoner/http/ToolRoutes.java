@@ -1,0 +1,164 @@
+package reckoner.http;
+
+import io.javalin.http.Context;
+import java.util.OptionalInt;
+import reckoner.call.CallRequest;
+import reckoner.call.Invoker;
+import reckoner.call.Outcome;
+import reckoner.spec.ToolCatalog;
+import reckoner.spec.ToolSpec;
+import reckoner.tool.Answer;
+import reckoner.tool.Arguments;
+import reckoner.tool.ErrorCode;
+import reckoner.tool.ToolId;
+import tools.jackson.core.JacksonException;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.node.ArrayNode;
+import tools.jackson.databind.node.ObjectNode;
+
+/** The tool endpoints: list, describe, invoke. */
+final class ToolRoutes {
+  static final String RUN_HEADER = "Reckoner-Run";
+  static final String REF_HEADER = "Reckoner-Ref";
+  static final String AS_OF_HEADER = "Reckoner-As-Of";
+  /** Longest run or ref tag accepted, in characters. */
+  static final int MAX_TAG_LENGTH = 200;
+
+  private final Invoker invoker;
+  private final Responses responses;
+  private final CallMetrics metrics;
+  private final Bodies bodies;
+
+  ToolRoutes(Invoker invoker, Responses responses, CallMetrics metrics, Bodies bodies) {
+    this.invoker = invoker;
+    this.responses = responses;
+    this.metrics = metrics;
+    this.bodies = bodies;
+  }
+
+  void list(Context ctx) {
+    ToolCatalog catalog = invoker.catalog();
+    ObjectNode body = responses.object();
+    ArrayNode tools = body.putArray("tools");
+    for (ToolCatalog.Entry e : catalog.all()) {
+      ToolId id = e.tool().id();
+      ObjectNode t = tools.addObject();
+      t.put("id", id.toString());
+      t.put("name", id.name());
+      t.put("version", id.version());
+      t.put("default", catalog.newest(id.name()).map(n -> n.tool().id().equals(id)).orElse(false));
+      t.put("summary", e.spec().summary());
+      t.put("text_form", e.spec().textForm());
+      t.put("spec", "/v1/tools/" + id.name() + "/" + id.version());
+      t.put("invoke", "/v1/tools/" + id.name() + "/" + id.version() + "/invoke");
+    }
+    responses.json(ctx, 200, body);
+  }
+
+  void describe(Context ctx) {
+    ToolId id = toolId(ctx);
+    ToolSpec spec = invoker.catalog().find(id).map(ToolCatalog.Entry::spec)
+        .orElseThrow(() -> unknownTool(id));
+    responses.json(ctx, 200, spec.document());
+  }
+
+  void invoke(Context ctx) {
+    boolean asText = MediaTypes.wantsText(ctx.header("Accept"));
+    ToolId id;
+    try {
+      id = toolId(ctx);
+    } catch (ApiException e) {
+      responses.problem(ctx, e.error(), asText, null);
+      return;
+    }
+    JsonNode args = readArguments(ctx);
+    CallRequest request = new CallRequest(id.name(), OptionalInt.of(id.version()), args,
+        tag(ctx, AS_OF_HEADER), tag(ctx, RUN_HEADER), tag(ctx, REF_HEADER));
+    Outcome outcome = invoker.invoke(request);
+    metrics.record(outcome);
+    if (outcome.isOk()) {
+      answer(ctx, outcome, asText);
+    } else {
+      responses.problem(ctx, outcome.error().get(), asText, outcome.invocationId());
+    }
+  }
+
+  private void answer(Context ctx, Outcome outcome, boolean asText) {
+    Answer answer = outcome.answer().get();
+    ctx.header("Reckoner-Invocation-Id", outcome.invocationId());
+    if (asText) {
+      responses.text(ctx, 200, answer.text());
+      return;
+    }
+    ObjectNode body = responses.object();
+    ToolId id = outcome.tool().get();
+    body.put("tool", id.name());
+    body.put("version", id.version());
+    body.put("text", answer.text());
+    body.put("cached", false);
+    body.put("invocation_id", outcome.invocationId());
+    answer.dataVersion().ifPresent(v -> body.put("data_version", v));
+    answer.clockReadAt().ifPresent(t -> body.put("as_of", t.toString()));
+    responses.json(ctx, 200, body);
+  }
+
+  /** JSON arguments, or with {@code Content-Type: text/plain} the body as the free-text form. */
+  private JsonNode readArguments(Context ctx) {
+    String type = MediaTypes.baseType(ctx.contentType());
+    MediaTypes.requireUtf8(ctx.contentType());
+    byte[] body = bodies.read(ctx);
+    switch (type) {
+      case "application/json":
+        if (body.length == 0) {
+          throw new ApiException(ErrorCode.INVALID_ARGUMENT, "the request body is empty; send the arguments as a JSON object");
+        }
+        try {
+          return responses.json().readTree(body);
+        } catch (JacksonException e) {
+          throw new ApiException(ErrorCode.INVALID_ARGUMENT, "the body is not valid JSON: " + Bodies.describe(e));
+        }
+      case "text/plain":
+        String text = Bodies.utf8(body);
+        ObjectNode args = responses.object();
+        args.put(Arguments.TEXT, text.strip());
+        return args;
+      case "":
+        throw new ApiException(ErrorCode.UNSUPPORTED_MEDIA_TYPE,
+            "missing Content-Type: send application/json arguments, or text/plain for the text form");
+      default:
+        throw new ApiException(ErrorCode.UNSUPPORTED_MEDIA_TYPE,
+            "Content-Type " + MediaTypes.clip(type) + " is not accepted: send application/json, or text/plain for the text form");
+    }
+  }
+
+  private static String tag(Context ctx, String header) {
+    String v = ctx.header(header);
+    if (v == null) {
+      return null;
+    }
+    if (v.length() > MAX_TAG_LENGTH || v.isEmpty() || !v.chars().allMatch(c -> c >= 0x20 && c < 0x7f)) {
+      throw new ApiException(ErrorCode.INVALID_ARGUMENT,
+          header + " must be 1 to " + MAX_TAG_LENGTH + " printable ASCII characters");
+    }
+    return v;
+  }
+
+  private ToolId toolId(Context ctx) {
+    String name = ctx.pathParam("name");
+    String version = ctx.pathParam("version");
+    if (!ToolId.isValidName(name)) {
+      throw new ApiException(ErrorCode.UNKNOWN_TOOL, "no tool named '" + MediaTypes.clip(name) + "'");
+    }
+    try {
+      return ToolId.of(name, ToolId.parseVersion(version));
+    } catch (IllegalArgumentException e) {
+      throw new ApiException(ErrorCode.UNKNOWN_TOOL,
+          "version must be a positive whole number, as in /v1/tools/" + name + "/1, but was '" + MediaTypes.clip(version) + "'");
+    }
+  }
+
+  private ApiException unknownTool(ToolId id) {
+    return new ApiException(ErrorCode.UNKNOWN_TOOL, "no tool " + id + "; served versions of '" + id.name() + "': "
+        + invoker.catalog().versions(id.name()));
+  }
+}
