@@ -68,7 +68,29 @@ final class DecimalMath {
     if (b.signum() == 0) {
       throw new ToolException(ErrorCode.DOMAIN_ERROR, "modulo by zero");
     }
-    return checked(a.remainder(b).round(CONTEXT));
+    return checked(exactRemainder(a, b).round(CONTEXT));
+  }
+
+  /**
+   * {@code a - b * trunc(a / b)}, exactly, without ever forming the quotient (which for
+   * {@code 1e9999 % 1e-9999} has 20,000 digits): on a common scale the remainder of
+   * {@code ma * 10^k} by {@code mb} is {@code (ma mod mb) * (10^k mod mb) mod mb}.
+   */
+  private static BigDecimal exactRemainder(BigDecimal a, BigDecimal b) {
+    BigInteger ma = a.unscaledValue().abs();
+    BigInteger mb = b.unscaledValue().abs();
+    BigInteger r;
+    int scale;
+    if (b.scale() >= a.scale()) {
+      scale = b.scale();
+      BigInteger shift = BigInteger.TEN.modPow(BigInteger.valueOf((long) b.scale() - a.scale()), mb);
+      r = ma.mod(mb).multiply(shift).mod(mb);
+    } else {
+      scale = a.scale();
+      r = ma.mod(mb.multiply(BigInteger.TEN.pow(a.scale() - b.scale())));
+    }
+    BigDecimal result = new BigDecimal(r, scale);
+    return a.signum() < 0 ? result.negate() : result;
   }
 
   /** {@code base ^ exponent}: decimal for whole exponents, binary double otherwise. */

@@ -25,7 +25,9 @@ public final class DecimalText {
     if (digits < 1) {
       throw new IllegalArgumentException("digits must be at least 1: " + digits);
     }
-    return value.round(new MathContext(digits, rounding.mode()));
+    BigDecimal r = value.round(new MathContext(digits, rounding.mode()));
+    // A value with fewer digits than asked (1.5 at 3 digits) gets the zeros that padding would show.
+    return r.precision() < digits ? r.setScale(r.scale() + digits - r.precision()) : r;
   }
 
   /**
