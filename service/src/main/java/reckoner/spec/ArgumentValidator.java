@@ -3,7 +3,9 @@ package reckoner.spec;
 import com.networknt.schema.Error;
 import com.networknt.schema.Schema;
 import com.networknt.schema.SchemaRegistry;
+import com.networknt.schema.SchemaRegistryConfig;
 import com.networknt.schema.SpecificationVersion;
+import java.util.Locale;
 import java.util.List;
 import java.util.Optional;
 import tools.jackson.databind.JsonNode;
@@ -13,7 +15,9 @@ import tools.jackson.databind.JsonNode;
  * sees them. Compiled once per spec; thread-safe.
  */
 public final class ArgumentValidator {
-  private static final SchemaRegistry REGISTRY = SchemaRegistry.withDefaultDialect(SpecificationVersion.DRAFT_2020_12);
+  // Messages in English whatever the JVM's default locale: they become answer text.
+  private static final SchemaRegistry REGISTRY = SchemaRegistry.withDefaultDialect(SpecificationVersion.DRAFT_2020_12,
+      builder -> builder.schemaRegistryConfig(SchemaRegistryConfig.builder().locale(Locale.ENGLISH).build()));
   private final Schema schema;
 
   private ArgumentValidator(Schema schema) {
@@ -34,11 +38,33 @@ public final class ArgumentValidator {
     if (!args.isObject()) {
       return Optional.of("the arguments must be a JSON object");
     }
-    List<Error> errors = schema.validate(args);
+    List<Error> errors;
+    try {
+      errors = schema.validate(args);
+    } catch (RuntimeException e) {
+      // The validator converts bounded numbers to long and fails on values beyond that range
+      // (seen with 1e100 against "maximum"); such a value is out of range for us too.
+      return Optional.of(outOfRange(args));
+    }
     if (errors.isEmpty()) {
       return Optional.empty();
     }
     return Optional.of(describe(errors.get(0)) + (errors.size() > 1 ? " (and " + (errors.size() - 1) + " more)" : ""));
+  }
+
+  private static String outOfRange(JsonNode args) {
+    for (java.util.Map.Entry<String, JsonNode> e : args.properties()) {
+      JsonNode v = e.getValue();
+      if (v.isNumber() && v.decimalValue().abs().compareTo(java.math.BigDecimal.valueOf(Long.MAX_VALUE)) > 0) {
+        return "argument '" + e.getKey() + "' is out of range: " + shortText(v.decimalValue());
+      }
+    }
+    return "the arguments could not be checked against the schema";
+  }
+
+  private static String shortText(java.math.BigDecimal d) {
+    String s = d.toString();
+    return s.length() <= 24 ? s : s.substring(0, 20) + "…";
   }
 
   private static String describe(Error e) {

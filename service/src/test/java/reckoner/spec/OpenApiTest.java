@@ -1,0 +1,83 @@
+package reckoner.spec;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertNotNull;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.networknt.schema.Error;
+import com.networknt.schema.Schema;
+import com.networknt.schema.SchemaLocation;
+import com.networknt.schema.SchemaRegistry;
+import com.networknt.schema.SpecificationVersion;
+import io.swagger.v3.oas.models.OpenAPI;
+import io.swagger.v3.parser.OpenAPIV3Parser;
+import io.swagger.v3.parser.core.models.ParseOptions;
+import io.swagger.v3.parser.core.models.SwaggerParseResult;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import reckoner.Tools;
+import reckoner.tool.ToolRegistry;
+import tools.jackson.databind.json.JsonMapper;
+import tools.jackson.databind.node.ObjectNode;
+
+/**
+ * The OpenAPI document against outside tools: swagger-parser (a general-purpose OpenAPI 3.1
+ * parser) must read it without a single message, and every tool spec must validate against the
+ * JSON Schema 2020-12 meta-schema (https://json-schema.org/draft/2020-12/schema, bundled with the
+ * networknt validator).
+ */
+final class OpenApiTest {
+  private static final JsonMapper JSON = Json.newMapper();
+  private static final ToolCatalog CATALOG = ToolCatalog.of(ToolRegistry.of(Tools.standard()), new SpecLoader(JSON));
+
+  @Test
+  void openApiDocument_parsesWithoutErrorsOrWarnings() {
+    ObjectNode doc = OpenApi.assemble(CATALOG, JSON, "test");
+    ParseOptions options = new ParseOptions();
+    options.setResolve(true);
+    SwaggerParseResult result = new OpenAPIV3Parser().readContents(JSON.writeValueAsString(doc), null, options);
+    assertEquals(List.of(), result.getMessages(), "parser messages");
+    OpenAPI api = result.getOpenAPI();
+    assertNotNull(api);
+    assertEquals("3.1.0", api.getOpenapi());
+    for (ToolCatalog.Entry e : CATALOG.all()) {
+      String path = "/v1/tools/" + e.tool().id().name() + "/" + e.tool().id().version() + "/invoke";
+      assertNotNull(api.getPaths().get(path), path);
+      assertEquals(e.spec().examples().size(),
+          api.getPaths().get(path).getPost().getRequestBody().getContent().get("application/json").getExamples().size());
+    }
+  }
+
+  @Test
+  void everySpec_validatesAgainstTheDraft202012MetaSchema() {
+    SchemaRegistry registry = SchemaRegistry.withDefaultDialect(SpecificationVersion.DRAFT_2020_12);
+    Schema meta = registry.getSchema(SchemaLocation.of("https://json-schema.org/draft/2020-12/schema"));
+    for (ToolCatalog.Entry e : CATALOG.all()) {
+      List<Error> errors = meta.validate(e.spec().document());
+      assertEquals(List.of(), errors, e.tool().id().toString());
+    }
+  }
+
+  @Test
+  void metaSchemaCheck_canFail() {
+    // The check above is only worth something if a broken schema fails it.
+    SchemaRegistry registry = SchemaRegistry.withDefaultDialect(SpecificationVersion.DRAFT_2020_12);
+    Schema meta = registry.getSchema(SchemaLocation.of("https://json-schema.org/draft/2020-12/schema"));
+    ObjectNode broken = JSON.createObjectNode();
+    broken.put("type", "no-such-type");
+    broken.put("minLength", -1);
+    assertTrue(!meta.validate(broken).isEmpty());
+  }
+
+  @Test
+  void everyExample_passesItsOwnSchema_unlessItExpectsInvalidArgument() {
+    for (ToolCatalog.Entry e : CATALOG.all()) {
+      for (ToolSpec.Example ex : e.spec().examples()) {
+        boolean valid = e.validator().check(ex.args()).isEmpty();
+        if (!valid) {
+          assertEquals("invalid_argument", ex.error(), e.tool().id() + ": " + ex.title());
+        }
+      }
+    }
+  }
+}
