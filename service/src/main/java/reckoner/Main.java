@@ -44,6 +44,24 @@ public final class Main implements Runnable {
     @Option(names = "--open-access", description = "Allow a non-loopback --host without API keys.")
     Boolean openAccess;
 
+    @Option(names = "--max-batch-bytes", description = "Largest batch, splice or fill body and NDJSON line (default 16777216).")
+    Long maxBatchBytes;
+
+    @Option(names = "--cache-size", description = "Answers kept in the answer cache; 0 turns it off (default 100000).")
+    Long cacheSize;
+
+    @Option(names = "--call-threads", description = "Threads that run batch calls; 0 = one per core (default 0).")
+    Integer callThreads;
+
+    @Option(names = "--markup-open", description = "Splice markup: the string that opens a call (default <<).")
+    String markupOpen;
+
+    @Option(names = "--markup-separator", description = "Splice markup: the string before an answer (default ' => ').")
+    String markupSeparator;
+
+    @Option(names = "--markup-close", description = "Splice markup: the string that closes a call (default >>).")
+    String markupClose;
+
     @Option(names = "--config", description = "A properties file of settings (same names as the flags, without --).")
     Path configFile;
 
@@ -55,6 +73,12 @@ public final class Main implements Runnable {
       if (dataDir != null) flags.put("data-dir", dataDir.toString());
       if (maxBodyBytes != null) flags.put("max-body-bytes", maxBodyBytes.toString());
       if (openAccess != null) flags.put("open-access", openAccess.toString());
+      if (maxBatchBytes != null) flags.put("max-batch-bytes", maxBatchBytes.toString());
+      if (cacheSize != null) flags.put("cache-size", cacheSize.toString());
+      if (callThreads != null) flags.put("call-threads", callThreads.toString());
+      if (markupOpen != null) flags.put("markup-open", markupOpen);
+      if (markupSeparator != null) flags.put("markup-separator", markupSeparator);
+      if (markupClose != null) flags.put("markup-close", markupClose);
       Path file = configFile != null ? configFile
           : System.getenv("RECKONER_CONFIG") != null ? Path.of(System.getenv("RECKONER_CONFIG")) : null;
       ServiceConfig config;
@@ -64,7 +88,13 @@ public final class Main implements Runnable {
         System.err.println("reckoner: " + e.getMessage());
         return 2;
       }
-      Service service = Service.start(config, Clock.systemUTC());
+      Service service;
+      try {
+        service = Service.start(config, Clock.systemUTC());
+      } catch (ConfigException e) {
+        System.err.println("reckoner: " + e.getMessage());
+        return 2;
+      }
       CountDownLatch stopped = new CountDownLatch(1);
       Runtime.getRuntime().addShutdownHook(new Thread(() -> {
         service.close();

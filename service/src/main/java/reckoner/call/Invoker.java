@@ -5,6 +5,7 @@ import java.time.Clock;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Objects;
 import java.util.Optional;
 import java.util.stream.Collectors;
 import org.slf4j.Logger;
@@ -15,6 +16,7 @@ import reckoner.tool.Arguments;
 import reckoner.tool.CallContext;
 import reckoner.tool.ErrorCode;
 import reckoner.tool.ResultText;
+import reckoner.tool.Tool;
 import reckoner.tool.ToolError;
 import reckoner.tool.ToolException;
 import reckoner.tool.ToolId;
@@ -34,15 +36,29 @@ public final class Invoker {
   private final ToolCatalog catalog;
   private final CallContext context;
   private final InvocationIds ids;
+  private final AnswerCache cache;
 
+  /** An invoker without an answer cache. */
   public Invoker(ToolCatalog catalog, Clock clock) {
+    this(catalog, clock, AnswerCache.ofMaximumSize(0));
+  }
+
+  public Invoker(ToolCatalog catalog, Clock clock, AnswerCache cache) {
     this.catalog = catalog;
     this.context = new CallContext(clock);
     this.ids = new InvocationIds(clock);
+    this.cache = cache;
   }
 
   public ToolCatalog catalog() {
     return catalog;
+  }
+
+  /** Runs one call given in its free-text form, as a model wrote it. */
+  public Outcome invokeText(String tool, java.util.OptionalInt version, String text, String asOf, String run, String ref) {
+    tools.jackson.databind.node.ObjectNode args = tools.jackson.databind.node.JsonNodeFactory.instance.objectNode();
+    args.put(Arguments.TEXT, text);
+    return invoke(new CallRequest(tool, version, args, asOf, run, ref));
   }
 
   /** Runs one call. Never throws for anything a caller sent. */
@@ -65,11 +81,21 @@ public final class Invoker {
       if (request.asOf() != null && !args.has(AS_OF) && entry.get().spec().declaresArgument(AS_OF)) {
         args = args.with(AS_OF, request.asOf());
       }
-      canonical = entry.get().tool().canonicalize(args);
-      Answer answer = entry.get().tool().invoke(canonical, context);
+      Tool tool = entry.get().tool();
+      canonical = tool.canonicalize(args);
+      AnswerCache.Key key = new AnswerCache.Key(toolId, canonical, tool.dataVersion(canonical).orElse(null));
+      Optional<Answer> hit = cache.get(key);
+      if (hit.isPresent()) {
+        return new Outcome(id, Optional.of(toolId), Optional.of(canonical), hit, Optional.empty(), true,
+            System.nanoTime() - start);
+      }
+      Answer answer = tool.invoke(canonical, context);
       Answer clean = new Answer(ResultText.clean(answer.text(), ResultText.DEFAULT_MAX_LENGTH),
           answer.cacheable(), answer.clockReadAt(), answer.dataVersion());
-      return new Outcome(id, Optional.of(toolId), Optional.of(canonical), Optional.of(clean), Optional.empty(),
+      if (Objects.equals(key.dataVersion(), clean.dataVersion().orElse(null))) { // a reload in between: don't keep it
+        cache.put(key, clean);
+      }
+      return new Outcome(id, Optional.of(toolId), Optional.of(canonical), Optional.of(clean), Optional.empty(), false,
           System.nanoTime() - start);
     } catch (ToolException e) {
       return failed(id, Optional.of(toolId), Optional.ofNullable(canonical), e.error(), start);
@@ -104,7 +130,7 @@ public final class Invoker {
   }
 
   private Outcome failed(String id, Optional<ToolId> tool, Optional<Arguments> canonical, ToolError error, long start) {
-    return new Outcome(id, tool, canonical, Optional.empty(), Optional.of(error), System.nanoTime() - start);
+    return new Outcome(id, tool, canonical, Optional.empty(), Optional.of(error), false, System.nanoTime() - start);
   }
 
   /** JSON scalars to argument values; the schema has already refused anything else. */

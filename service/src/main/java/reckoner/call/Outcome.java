@@ -9,11 +9,12 @@ import reckoner.tool.ToolId;
 
 /**
  * What one call came to: either an {@link Answer} or a {@link ToolError}, with the tool id as asked
- * (or resolved), the canonical arguments when they could be computed, and the time it took.
+ * (or resolved), the canonical arguments when they could be computed, whether the answer came
+ * from the answer cache, and the time it took.
  * Immutable.
  */
 public record Outcome(String invocationId, Optional<ToolId> tool, Optional<Arguments> canonical,
-    Optional<Answer> answer, Optional<ToolError> error, long elapsedNanos) {
+    Optional<Answer> answer, Optional<ToolError> error, boolean cached, long elapsedNanos) {
 
   public Outcome {
     Objects.requireNonNull(invocationId, "invocationId");

@@ -25,8 +25,15 @@ import java.util.TreeSet;
  * @param dataDir the directory that holds the ledger and {@code facts/}
  * @param maxBodyBytes largest request body accepted, in bytes
  * @param openAccess whether to listen on a non-loopback address without API keys (explicit opt-in)
+ * @param maxBatchBytes largest JSON batch, splice or fill body, and longest NDJSON line
+ * @param cacheSize most answers kept in the answer cache (0 turns it off)
+ * @param callThreads threads that run batch calls (0: one per core)
+ * @param markupOpen the server's splice markup: opening string
+ * @param markupSeparator the server's splice markup: separator before an answer
+ * @param markupClose the server's splice markup: closing string
  */
-public record ServiceConfig(String host, int port, Path dataDir, long maxBodyBytes, boolean openAccess) {
+public record ServiceConfig(String host, int port, Path dataDir, long maxBodyBytes, boolean openAccess,
+    long maxBatchBytes, long cacheSize, int callThreads, String markupOpen, String markupSeparator, String markupClose) {
   /** Every setting with its default. The README's settings table lists the same. */
   public static final Map<String, String> DEFAULTS = defaults();
 
@@ -36,6 +43,15 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     }
     if (maxBodyBytes < 1024 || maxBodyBytes > 256L * 1024 * 1024) {
       throw new ConfigException("max-body-bytes must be between 1024 and 268435456 but was " + maxBodyBytes);
+    }
+    if (maxBatchBytes < 1024 || maxBatchBytes > 1024L * 1024 * 1024) {
+      throw new ConfigException("max-batch-bytes must be between 1024 and 1073741824 but was " + maxBatchBytes);
+    }
+    if (cacheSize < 0) {
+      throw new ConfigException("cache-size must not be negative but was " + cacheSize);
+    }
+    if (callThreads < 0 || callThreads > 512) {
+      throw new ConfigException("call-threads must be between 0 and 512 but was " + callThreads);
     }
     if (!openAccess && !isLoopback(host)) {
       throw new ConfigException("refusing to listen on " + host + " without API keys: use a loopback host "
@@ -50,6 +66,12 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     d.put("data-dir", "./data");
     d.put("max-body-bytes", "1048576");
     d.put("open-access", "false");
+    d.put("max-batch-bytes", "16777216");
+    d.put("cache-size", "100000");
+    d.put("call-threads", "0");
+    d.put("markup-open", "<<");
+    d.put("markup-separator", " => ");
+    d.put("markup-close", ">>");
     return java.util.Collections.unmodifiableMap(d);
   }
 
@@ -67,7 +89,13 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
         integer(s, "port"),
         Path.of(s.get("data-dir")),
         longValue(s, "max-body-bytes"),
-        bool(s, "open-access"));
+        bool(s, "open-access"),
+        longValue(s, "max-batch-bytes"),
+        longValue(s, "cache-size"),
+        integer(s, "call-threads"),
+        s.get("markup-open"),
+        s.get("markup-separator"),
+        s.get("markup-close"));
   }
 
   /**
@@ -102,7 +130,7 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
       throw new ConfigException("cannot read config file " + file + ": " + e.getMessage());
     }
     Map<String, String> m = new LinkedHashMap<>();
-    p.stringPropertyNames().forEach(k -> m.put(k.trim(), p.getProperty(k).trim()));
+    p.stringPropertyNames().forEach(k -> m.put(k.trim(), k.startsWith("markup-") ? p.getProperty(k) : p.getProperty(k).trim()));
     return m;
   }
 

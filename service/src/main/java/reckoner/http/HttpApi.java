@@ -6,10 +6,13 @@ import io.javalin.http.HttpResponseException;
 import io.micrometer.prometheusmetrics.PrometheusMeterRegistry;
 import java.util.Arrays;
 import java.util.Optional;
+import java.util.concurrent.ExecutorService;
 import java.util.function.BooleanSupplier;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import reckoner.call.Invoker;
+import reckoner.splice.Filler;
+import reckoner.splice.Markup;
 import reckoner.tool.ErrorCode;
 import reckoner.tool.ToolError;
 import tools.jackson.databind.json.JsonMapper;
@@ -23,25 +26,34 @@ public final class HttpApi {
   private static final Logger LOG = LoggerFactory.getLogger(HttpApi.class);
 
   /** What the routes need, made by {@code Main}. */
-  public record Settings(long maxBodyBytes, ObjectNode openApi, BooleanSupplier ready) {}
+  public record Settings(long maxBodyBytes, long maxBatchBytes, Markup markup, ObjectNode openApi, BooleanSupplier ready,
+      ExecutorService callExecutor) {}
 
   private HttpApi() {}
 
   public static Javalin create(Invoker invoker, PrometheusMeterRegistry metrics, JsonMapper json, Settings settings) {
     Responses responses = new Responses(json);
     Bodies bodies = new Bodies(settings.maxBodyBytes());
-    ToolRoutes tools = new ToolRoutes(invoker, responses, new CallMetrics(metrics), bodies);
+    CallMetrics callMetrics = new CallMetrics(metrics);
+    ToolRoutes tools = new ToolRoutes(invoker, responses, callMetrics, bodies);
+    BatchRoutes batch = new BatchRoutes(invoker, responses, callMetrics, new Bodies(settings.maxBatchBytes()),
+        settings.callExecutor());
+    SpliceRoutes splice = new SpliceRoutes(new Filler(invoker), responses, callMetrics, new Bodies(settings.maxBatchBytes()),
+        settings.markup());
     byte[] openApi = json.writeValueAsBytes(settings.openApi());
 
     return Javalin.create(config -> {
       config.startup.showJavalinBanner = false;
-      config.http.maxRequestSize = settings.maxBodyBytes();
+      config.http.maxRequestSize = Math.max(settings.maxBodyBytes(), settings.maxBatchBytes());
       config.http.prefer405over404 = true;
       config.router.ignoreTrailingSlashes = true;
 
       config.routes.get("/v1/tools", tools::list);
       config.routes.get("/v1/tools/{name}/{version}", tools::describe);
       config.routes.post("/v1/tools/{name}/{version}/invoke", tools::invoke);
+      config.routes.post("/v1/batch", batch::batch);
+      config.routes.post("/v1/splice", splice::splice);
+      config.routes.post("/v1/fill", splice::fill);
       config.routes.get("/openapi.json", ctx -> ctx.contentType(MediaTypes.JSON).result(openApi));
       config.routes.get("/health/live", ctx -> responses.json(ctx, 200, responses.object().put("status", "up")));
       config.routes.get("/health/ready", ctx -> ready(ctx, responses, settings.ready()));

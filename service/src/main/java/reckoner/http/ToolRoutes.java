@@ -95,7 +95,7 @@ final class ToolRoutes {
     body.put("tool", id.name());
     body.put("version", id.version());
     body.put("text", answer.text());
-    body.put("cached", false);
+    body.put("cached", outcome.cached());
     body.put("invocation_id", outcome.invocationId());
     answer.dataVersion().ifPresent(v -> body.put("data_version", v));
     answer.clockReadAt().ifPresent(t -> body.put("as_of", t.toString()));
@@ -131,7 +131,7 @@ final class ToolRoutes {
     }
   }
 
-  private static String tag(Context ctx, String header) {
+  static String tag(Context ctx, String header) {
     String v = ctx.header(header);
     if (v == null) {
       return null;

@@ -22,6 +22,8 @@ public enum ErrorCode {
   NOT_ACCEPTABLE,
   /** A defect on our side; never caused by input alone. Shows no internals. */
   INTERNAL_ERROR,
+  /** An answer that holds a splice markup string and so cannot be spliced without ambiguity. */
+  UNSPLICEABLE,
   // arith
   SYNTAX_ERROR,
   DOMAIN_ERROR,

@@ -22,4 +22,13 @@ public interface Tool {
 
   /** Computes the answer to canonical arguments, as returned by {@link #canonicalize}. */
   Answer invoke(Arguments canonical, CallContext context) throws ToolException;
+
+  /**
+   * The version of the data that {@link #invoke} would answer {@code canonical} from, for tools
+   * whose answers come from reloadable data (fact sets); empty for pure functions. The answer
+   * cache keys on it, so a reload never serves a stale answer.
+   */
+  default java.util.Optional<String> dataVersion(Arguments canonical) {
+    return java.util.Optional.empty();
+  }
 }

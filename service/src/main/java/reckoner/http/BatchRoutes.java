@@ -1,0 +1,236 @@
+package reckoner.http;
+
+import io.javalin.http.Context;
+import java.io.BufferedOutputStream;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.OutputStream;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.OptionalInt;
+import java.util.concurrent.ArrayBlockingQueue;
+import java.util.concurrent.BlockingQueue;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Future;
+import reckoner.call.CallRequest;
+import reckoner.call.Invoker;
+import reckoner.call.Outcome;
+import reckoner.tool.ErrorCode;
+import reckoner.tool.ToolError;
+import tools.jackson.core.JacksonException;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.node.ArrayNode;
+import tools.jackson.databind.node.ObjectNode;
+
+/**
+ * {@code POST /v1/batch}: many calls in one request, run in parallel on the call executor, answered
+ * in input order. JSON ({@code {"calls":[...]}}, at most {@link #MAX_JSON_CALLS}) or NDJSON
+ * streamed line by line in constant memory: at most {@link #WINDOW} calls are in flight, and a line
+ * is answered as soon as it and every line before it are done. One bad call fails only itself.
+ */
+final class BatchRoutes {
+  static final int MAX_JSON_CALLS = 10_000;
+  /** Calls in flight in one NDJSON stream: enough to keep every core busy, small enough to bound memory. */
+  static final int WINDOW = 1024;
+  private static final java.util.Set<String> ITEM_FIELDS = java.util.Set.of("id", "tool", "version", "args", "ref", "run");
+
+  private final Invoker invoker;
+  private final Responses responses;
+  private final CallMetrics metrics;
+  private final Bodies bodies;
+  private final ExecutorService executor;
+
+  BatchRoutes(Invoker invoker, Responses responses, CallMetrics metrics, Bodies batchBodies, ExecutorService executor) {
+    this.invoker = invoker;
+    this.responses = responses;
+    this.metrics = metrics;
+    this.bodies = batchBodies;
+    this.executor = executor;
+  }
+
+  void batch(Context ctx) throws Exception {
+    String type = MediaTypes.baseType(ctx.contentType());
+    MediaTypes.requireUtf8(ctx.contentType());
+    String run = ToolRoutes.tag(ctx, ToolRoutes.RUN_HEADER);
+    String asOf = ToolRoutes.tag(ctx, ToolRoutes.AS_OF_HEADER);
+    if (type.equals(MediaTypes.NDJSON) || type.equals("application/jsonl") || type.equals("application/jsonlines")) {
+      ndjson(ctx, run, asOf);
+    } else if (type.equals(MediaTypes.JSON)) {
+      json(ctx, run, asOf);
+    } else {
+      throw new ApiException(ErrorCode.UNSUPPORTED_MEDIA_TYPE, "send application/json ({\"calls\":[...]}) or application/x-ndjson (one call a line), not "
+          + (type.isEmpty() ? "no Content-Type" : MediaTypes.clip(type)));
+    }
+  }
+
+  private void json(Context ctx, String run, String asOf) throws InterruptedException, ExecutionException {
+    JsonNode body;
+    try {
+      body = responses.json().readTree(bodies.read(ctx));
+    } catch (JacksonException e) {
+      throw new ApiException(ErrorCode.INVALID_ARGUMENT, "the body is not valid JSON: " + Bodies.describe(e));
+    }
+    JsonNode calls = body == null ? null : body.get("calls");
+    if (body == null || !body.isObject() || calls == null || !calls.isArray() || body.size() != 1) {
+      throw new ApiException(ErrorCode.INVALID_ARGUMENT, "the body must be {\"calls\":[...]}, an object with one array");
+    }
+    if (calls.size() > MAX_JSON_CALLS) {
+      throw new ApiException(ErrorCode.LIMIT_EXCEEDED, "a JSON batch holds at most " + MAX_JSON_CALLS + " calls but had "
+          + calls.size() + "; stream larger batches as application/x-ndjson");
+    }
+    List<Future<ObjectNode>> results = new ArrayList<>(calls.size());
+    for (JsonNode item : calls) {
+      results.add(executor.submit(() -> runItem(item, run, asOf, 0)));
+    }
+    ObjectNode out = responses.object();
+    ArrayNode array = out.putArray("results");
+    for (Future<ObjectNode> f : results) {
+      array.add(f.get());
+    }
+    responses.json(ctx, 200, out);
+  }
+
+  private void ndjson(Context ctx, String run, String asOf) throws IOException, InterruptedException {
+    ctx.status(200).contentType(MediaTypes.NDJSON);
+    OutputStream out = new BufferedOutputStream(ctx.outputStream(), 1 << 16);
+    BlockingQueue<Future<byte[]>> window = new ArrayBlockingQueue<>(WINDOW);
+    CompletableFuture<byte[]> end = CompletableFuture.completedFuture(null);
+    Thread writer = new Thread(() -> writeInOrder(window, end, out), "reckoner-batch-writer");
+    writer.start();
+    try (InputStream in = ctx.req().getInputStream()) {
+      LineReader lines = new LineReader(in, bodies.limit());
+      for (LineReader.Line line; (line = lines.next()) != null; ) {
+        if (line.isBlank()) {
+          continue;
+        }
+        LineReader.Line current = line;
+        window.put(executor.submit(() -> responses.json().writeValueAsBytes(runLine(current, run, asOf))));
+      }
+    } finally {
+      window.put(end);
+      writer.join();
+    }
+  }
+
+  /**
+   * Writes results in input order; flushes whenever the next result is not ready yet, so callers
+   * see answers early. If the client goes away, keeps taking results (unwritten) until the end
+   * marker, so the reading side is never blocked on a full window.
+   */
+  private void writeInOrder(BlockingQueue<Future<byte[]>> window, Future<byte[]> end, OutputStream out) {
+    boolean broken = false;
+    try {
+      while (true) {
+        Future<byte[]> next = window.peek();
+        if (!broken && (next == null || !next.isDone())) {
+          broken = !flush(out);
+        }
+        next = window.take();
+        if (next == end) {
+          break;
+        }
+        byte[] line = next.get();
+        if (!broken) {
+          try {
+            out.write(line);
+            out.write('\n');
+          } catch (IOException e) {
+            broken = true;
+          }
+        }
+      }
+      if (!broken) {
+        flush(out);
+      }
+    } catch (InterruptedException e) {
+      Thread.currentThread().interrupt();
+    } catch (ExecutionException e) {
+      throw new IllegalStateException("a batch call failed outside the invoker", e.getCause());
+    }
+  }
+
+  private static boolean flush(OutputStream out) {
+    try {
+      out.flush();
+      return true;
+    } catch (IOException e) {
+      return false;
+    }
+  }
+
+  private ObjectNode runLine(LineReader.Line line, String run, String asOf) {
+    if (line.tooLong()) {
+      return Outcomes.refused(responses.object(), null, ToolError.of(ErrorCode.PAYLOAD_TOO_LARGE,
+          "line " + line.number() + " is longer than " + bodies.limit() + " bytes"), line.number());
+    }
+    JsonNode item;
+    try {
+      item = responses.json().readTree(line.bytes());
+    } catch (JacksonException e) {
+      return Outcomes.refused(responses.object(), null, ToolError.of(ErrorCode.INVALID_ARGUMENT,
+          "line " + line.number() + " is not valid JSON: " + Bodies.describe(e)), line.number());
+    }
+    return runItem(item, run, asOf, line.number());
+  }
+
+  private ObjectNode runItem(JsonNode item, String run, String asOf, long lineNumber) {
+    JsonNode id = item != null && item.isObject() ? item.get("id") : null;
+    try {
+      CallRequest request = request(item, run, asOf);
+      Outcome outcome = invoker.invoke(request);
+      metrics.record(outcome);
+      return Outcomes.write(responses.object(), id, outcome);
+    } catch (ApiException e) {
+      return Outcomes.refused(responses.object(), id, e.error(), lineNumber);
+    }
+  }
+
+  private static CallRequest request(JsonNode item, String run, String asOf) {
+    if (item == null || !item.isObject()) {
+      throw new ApiException(ErrorCode.INVALID_ARGUMENT, "a call must be an object {\"id\",\"tool\",\"version\",\"args\",\"ref\"}");
+    }
+    for (String field : item.propertyNames()) {
+      if (!ITEM_FIELDS.contains(field)) {
+        throw new ApiException(ErrorCode.INVALID_ARGUMENT, "unknown field '" + MediaTypes.clip(field) + "' in a call; known: id, tool, version, args, ref, run");
+      }
+    }
+    JsonNode id = item.get("id");
+    if (id != null && !id.isString() && !id.isIntegralNumber() && !id.isNull()) {
+      throw new ApiException(ErrorCode.INVALID_ARGUMENT, "a call's id must be a string or a whole number");
+    }
+    JsonNode tool = item.get("tool");
+    if (tool == null || !tool.isString()) {
+      throw new ApiException(ErrorCode.INVALID_ARGUMENT, "a call needs \"tool\", a tool name such as \"arith\"");
+    }
+    OptionalInt version = OptionalInt.empty();
+    JsonNode v = item.get("version");
+    if (v != null && !v.isNull()) {
+      if (!v.canConvertToInt() || !v.isIntegralNumber() || v.intValue() < 1) {
+        throw new ApiException(ErrorCode.INVALID_ARGUMENT, "a call's version must be a positive whole number");
+      }
+      version = OptionalInt.of(v.intValue());
+    }
+    JsonNode args = item.get("args");
+    if (args == null || !args.isObject()) {
+      throw new ApiException(ErrorCode.INVALID_ARGUMENT, "a call needs \"args\", an object of the tool's arguments");
+    }
+    String ref = tagField(item, "ref");
+    String itemRun = tagField(item, "run");
+    return new CallRequest(tool.stringValue(), version, args, asOf, itemRun != null ? itemRun : run, ref);
+  }
+
+  private static String tagField(JsonNode item, String field) {
+    JsonNode n = item.get(field);
+    if (n == null || n.isNull()) {
+      return null;
+    }
+    String s = n.isString() ? n.stringValue() : null;
+    if (s == null || s.isEmpty() || s.length() > ToolRoutes.MAX_TAG_LENGTH || !s.chars().allMatch(c -> c >= 0x20 && c < 0x7f)) {
+      throw new ApiException(ErrorCode.INVALID_ARGUMENT, "a call's " + field + " must be 1 to " + ToolRoutes.MAX_TAG_LENGTH
+          + " printable ASCII characters");
+    }
+    return s;
+  }
+}

@@ -1,0 +1,168 @@
+package reckoner.http;
+
+import io.javalin.http.Context;
+import java.util.Optional;
+import reckoner.splice.Filler;
+import reckoner.splice.Markup;
+import reckoner.splice.OnError;
+import reckoner.tool.ErrorCode;
+import reckoner.tool.ToolException;
+import tools.jackson.core.JacksonException;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.node.ArrayNode;
+import tools.jackson.databind.node.ObjectNode;
+
+/** {@code POST /v1/splice} (one call as written) and {@code POST /v1/fill} (every call of a document). */
+final class SpliceRoutes {
+  private final Filler filler;
+  private final Responses responses;
+  private final CallMetrics metrics;
+  private final Bodies bodies;
+  private final Markup serverMarkup;
+
+  SpliceRoutes(Filler filler, Responses responses, CallMetrics metrics, Bodies bodies, Markup serverMarkup) {
+    this.filler = filler;
+    this.responses = responses;
+    this.metrics = metrics;
+    this.bodies = bodies;
+    this.serverMarkup = serverMarkup;
+  }
+
+  /** Body: {@code {"call":"arith(1250/4000)","markup":{...}}}, or the call itself as text/plain. */
+  void splice(Context ctx) {
+    boolean asText = MediaTypes.wantsText(ctx.header("Accept"));
+    Request r = read(ctx, "call");
+    Filler.Spliced s;
+    try {
+      s = filler.splice(r.text, r.markup, tags(ctx));
+    } catch (ToolException e) {
+      responses.problem(ctx, e.error(), asText, null);
+      return;
+    }
+    metrics.record(s.outcome());
+    if (asText) {
+      responses.text(ctx, s.isOk() ? 200 : Problem.status(s.outcome().error().get().code()), s.outcome().text());
+      return;
+    }
+    if (!s.isOk()) {
+      ObjectNode problem = responses.problemBody(s.outcome().error().get(), s.outcome().invocationId());
+      problem.put("call", s.call().toString());
+      problem.put("spliced", s.spliced());
+      ctx.header(Responses.ERROR_CODE_HEADER, s.outcome().error().get().code().wireName());
+      ctx.status(Problem.status(s.outcome().error().get().code())).contentType(MediaTypes.PROBLEM)
+          .result(responses.json().writeValueAsBytes(problem));
+      return;
+    }
+    ObjectNode body = Outcomes.write(responses.object(), null, s.outcome());
+    body.put("call", s.call().toString());
+    body.put("spliced", s.spliced());
+    responses.json(ctx, 200, body);
+  }
+
+  /** Body: {@code {"document":"...","markup":{...},"on_error":"splice_error"}}, or the document as text/plain. */
+  void fill(Context ctx) {
+    boolean asText = MediaTypes.wantsText(ctx.header("Accept"));
+    Request r = read(ctx, "document");
+    Filler.Filled filled = filler.fill(r.text, r.markup, r.onError, tags(ctx));
+    filled.calls().forEach(c -> metrics.record(c.outcome()));
+    if (asText) {
+      responses.text(ctx, 200, filled.document());
+      return;
+    }
+    ObjectNode body = responses.object();
+    body.put("document", filled.document());
+    ArrayNode calls = body.putArray("calls");
+    int errors = 0;
+    for (Filler.Spliced c : filled.calls()) {
+      ObjectNode n = calls.addObject();
+      n.put("position", c.position());
+      n.put("call", c.call().toString());
+      Outcomes.write(n, null, c.outcome());
+      errors += c.isOk() ? 0 : 1;
+    }
+    ArrayNode malformed = body.putArray("malformed");
+    for (Filler.Malformed m : filled.malformed()) {
+      ObjectNode n = malformed.addObject();
+      n.put("position", m.position());
+      n.put("code", m.error().code().wireName());
+      n.put("detail", m.error().detail());
+      n.put("text", m.error().text());
+    }
+    ObjectNode summary = body.putObject("summary");
+    summary.put("calls", filled.calls().size());
+    summary.put("ok", filled.calls().size() - errors);
+    summary.put("errors", errors);
+    summary.put("malformed", filled.malformed().size());
+    responses.json(ctx, 200, body);
+  }
+
+  private record Request(String text, Markup markup, OnError onError) {}
+
+  private Request read(Context ctx, String field) {
+    String type = MediaTypes.baseType(ctx.contentType());
+    MediaTypes.requireUtf8(ctx.contentType());
+    byte[] bytes = bodies.read(ctx);
+    if (type.equals("text/plain")) {
+      return new Request(Bodies.utf8(bytes), serverMarkup, OnError.SPLICE_ERROR);
+    }
+    if (!type.equals(MediaTypes.JSON)) {
+      throw new ApiException(ErrorCode.UNSUPPORTED_MEDIA_TYPE, "send application/json, or text/plain for the bare "
+          + field + ", not " + (type.isEmpty() ? "no Content-Type" : MediaTypes.clip(type)));
+    }
+    JsonNode body;
+    try {
+      body = responses.json().readTree(bytes);
+    } catch (JacksonException e) {
+      throw new ApiException(ErrorCode.INVALID_ARGUMENT, "the body is not valid JSON: " + Bodies.describe(e));
+    }
+    if (body == null || !body.isObject() || !body.path(field).isString()) {
+      throw new ApiException(ErrorCode.INVALID_ARGUMENT, "the body must be an object with \"" + field + "\", a string");
+    }
+    for (String name : body.propertyNames()) {
+      if (!name.equals(field) && !name.equals("markup") && !(name.equals("on_error") && field.equals("document"))) {
+        throw new ApiException(ErrorCode.INVALID_ARGUMENT, "unknown field '" + MediaTypes.clip(name) + "'");
+      }
+    }
+    return new Request(body.get(field).stringValue(), markup(body.get("markup")), onError(body.get("on_error")));
+  }
+
+  private Markup markup(JsonNode node) {
+    if (node == null || node.isNull()) {
+      return serverMarkup;
+    }
+    if (!node.isObject()) {
+      throw new ApiException(ErrorCode.INVALID_ARGUMENT, "markup must be an object {\"open\",\"separator\",\"close\"}");
+    }
+    for (String name : node.propertyNames()) {
+      if (!name.equals("open") && !name.equals("separator") && !name.equals("close")) {
+        throw new ApiException(ErrorCode.INVALID_ARGUMENT, "unknown markup field '" + MediaTypes.clip(name) + "'; known: open, separator, close");
+      }
+      if (!node.get(name).isString()) {
+        throw new ApiException(ErrorCode.INVALID_ARGUMENT, "markup." + name + " must be a string");
+      }
+    }
+    try {
+      return new Markup(text(node, "open", serverMarkup.open()), text(node, "separator", serverMarkup.separator()),
+          text(node, "close", serverMarkup.close()));
+    } catch (IllegalArgumentException e) {
+      throw new ApiException(ErrorCode.INVALID_ARGUMENT, "markup: " + e.getMessage());
+    }
+  }
+
+  private static String text(JsonNode node, String field, String fallback) {
+    return Optional.ofNullable(node.get(field)).map(JsonNode::stringValue).orElse(fallback);
+  }
+
+  private static OnError onError(JsonNode node) {
+    if (node == null || node.isNull()) {
+      return OnError.SPLICE_ERROR;
+    }
+    return OnError.parse(node.isString() ? node.stringValue() : "").orElseThrow(() ->
+        new ApiException(ErrorCode.INVALID_ARGUMENT, "on_error must be splice_error, drop or keep"));
+  }
+
+  private static Filler.Tags tags(Context ctx) {
+    return new Filler.Tags(ToolRoutes.tag(ctx, ToolRoutes.RUN_HEADER), ToolRoutes.tag(ctx, ToolRoutes.REF_HEADER),
+        ToolRoutes.tag(ctx, ToolRoutes.AS_OF_HEADER));
+  }
+}
