@@ -1,21 +1,31 @@
 package reckoner;
 
+import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Clock;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.concurrent.Callable;
 import java.util.concurrent.CountDownLatch;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
+import reckoner.cli.FillCommand;
 import reckoner.config.ConfigException;
 import reckoner.config.ServiceConfig;
+import reckoner.spec.Json;
+import reckoner.splice.Filler;
+import reckoner.splice.OnError;
 
-/** The command line: {@code reckoner serve [--port N] [--data-dir DIR] ...}. Wiring only. */
+/** The command line: {@code reckoner serve} and {@code reckoner fill}. Wiring only. */
 @Command(name = "reckoner", mixinStandardHelpOptions = true, version = "reckoner " + Service.VERSION,
-    description = "Deterministic, versioned tools for language-model agents, served over HTTP.",
-    subcommands = {Main.Serve.class})
+    description = "Deterministic, versioned tools for language-model agents.",
+    subcommands = {Main.Serve.class, Main.Fill.class})
 public final class Main implements Runnable {
   public static void main(String[] args) {
     System.exit(new CommandLine(new Main()).execute(args));
@@ -26,31 +36,15 @@ public final class Main implements Runnable {
     new CommandLine(this).usage(System.out);
   }
 
-  @Command(name = "serve", mixinStandardHelpOptions = true,
-      description = "Start the HTTP service. Settings: flag > RECKONER_* environment > --config file > default.")
-  static final class Serve implements Callable<Integer> {
-    @Option(names = "--port", description = "TCP port (default 8080; 0 = any free port).")
-    Integer port;
-
-    @Option(names = "--host", description = "Address to listen on (default 127.0.0.1).")
-    String host;
-
+  /** Settings both commands share. Each maps to the setting of the same name (see ServiceConfig). */
+  static final class Settings {
     @Option(names = "--data-dir", description = "Directory for the ledger and facts/ (default ./data).")
     Path dataDir;
-
-    @Option(names = "--max-body-bytes", description = "Largest request body accepted (default 1048576).")
-    Long maxBodyBytes;
-
-    @Option(names = "--open-access", description = "Allow a non-loopback --host without API keys.")
-    Boolean openAccess;
-
-    @Option(names = "--max-batch-bytes", description = "Largest batch, splice or fill body and NDJSON line (default 16777216).")
-    Long maxBatchBytes;
 
     @Option(names = "--cache-size", description = "Answers kept in the answer cache; 0 turns it off (default 100000).")
     Long cacheSize;
 
-    @Option(names = "--call-threads", description = "Threads that run batch calls; 0 = one per core (default 0).")
+    @Option(names = "--call-threads", description = "Threads that run calls in parallel; 0 = one per core (default 0).")
     Integer callThreads;
 
     @Option(names = "--markup-open", description = "Splice markup: the string that opens a call (default <<).")
@@ -65,32 +59,57 @@ public final class Main implements Runnable {
     @Option(names = "--config", description = "A properties file of settings (same names as the flags, without --).")
     Path configFile;
 
-    @Override
-    public Integer call() throws InterruptedException {
-      Map<String, String> flags = new LinkedHashMap<>();
-      if (port != null) flags.put("port", port.toString());
-      if (host != null) flags.put("host", host);
-      if (dataDir != null) flags.put("data-dir", dataDir.toString());
-      if (maxBodyBytes != null) flags.put("max-body-bytes", maxBodyBytes.toString());
-      if (openAccess != null) flags.put("open-access", openAccess.toString());
-      if (maxBatchBytes != null) flags.put("max-batch-bytes", maxBatchBytes.toString());
-      if (cacheSize != null) flags.put("cache-size", cacheSize.toString());
-      if (callThreads != null) flags.put("call-threads", callThreads.toString());
-      if (markupOpen != null) flags.put("markup-open", markupOpen);
-      if (markupSeparator != null) flags.put("markup-separator", markupSeparator);
-      if (markupClose != null) flags.put("markup-close", markupClose);
+    final Map<String, String> flags = new LinkedHashMap<>();
+
+    void put(String name, Object value) {
+      if (value != null) {
+        flags.put(name, value.toString());
+      }
+    }
+
+    ServiceConfig resolve() {
+      put("data-dir", dataDir);
+      put("cache-size", cacheSize);
+      put("call-threads", callThreads);
+      put("markup-open", markupOpen);
+      put("markup-separator", markupSeparator);
+      put("markup-close", markupClose);
       Path file = configFile != null ? configFile
           : System.getenv("RECKONER_CONFIG") != null ? Path.of(System.getenv("RECKONER_CONFIG")) : null;
-      ServiceConfig config;
-      try {
-        config = ServiceConfig.from(ServiceConfig.merge(file, System.getenv(), flags));
-      } catch (ConfigException e) {
-        System.err.println("reckoner: " + e.getMessage());
-        return 2;
-      }
+      return ServiceConfig.from(ServiceConfig.merge(file, System.getenv(), flags));
+    }
+  }
+
+  @Command(name = "serve", mixinStandardHelpOptions = true,
+      description = "Start the HTTP service. Settings: flag > RECKONER_* environment > --config file > default.")
+  static final class Serve implements Callable<Integer> {
+    @Mixin Settings settings;
+
+    @Option(names = "--port", description = "TCP port (default 8080; 0 = any free port).")
+    Integer port;
+
+    @Option(names = "--host", description = "Address to listen on (default 127.0.0.1).")
+    String host;
+
+    @Option(names = "--max-body-bytes", description = "Largest request body accepted (default 1048576).")
+    Long maxBodyBytes;
+
+    @Option(names = "--max-batch-bytes", description = "Largest batch, splice or fill body and NDJSON line (default 16777216).")
+    Long maxBatchBytes;
+
+    @Option(names = "--open-access", description = "Allow a non-loopback --host without API keys.")
+    Boolean openAccess;
+
+    @Override
+    public Integer call() throws InterruptedException {
+      settings.put("port", port);
+      settings.put("host", host);
+      settings.put("max-body-bytes", maxBodyBytes);
+      settings.put("max-batch-bytes", maxBatchBytes);
+      settings.put("open-access", openAccess);
       Service service;
       try {
-        service = Service.start(config, Clock.systemUTC());
+        service = Service.start(settings.resolve(), Clock.systemUTC());
       } catch (ConfigException e) {
         System.err.println("reckoner: " + e.getMessage());
         return 2;
@@ -102,6 +121,63 @@ public final class Main implements Runnable {
       }, "reckoner-shutdown"));
       stopped.await();
       return 0;
+    }
+  }
+
+  @Command(name = "fill", mixinStandardHelpOptions = true,
+      description = {"Answer every call in a JSON Lines file of documents, offline, with the service's engine.",
+          "Input lines: {\"id\": ..., \"document\": \"text with <<arith(1+1)>> calls\"}.",
+          "Output lines, in input order: {\"id\", \"document\", \"calls\", \"malformed\"}."})
+  static final class Fill implements Callable<Integer> {
+    @Mixin Settings settings;
+
+    @Option(names = {"-i", "--input"}, required = true, description = "The JSON Lines file of documents.")
+    Path input;
+
+    @Option(names = {"-o", "--output"}, required = true, description = "Where to write the filled documents.")
+    Path output;
+
+    @Option(names = "--run", description = "Run tag recorded with every call.")
+    String run;
+
+    @Option(names = "--on-error", defaultValue = "splice_error",
+        description = "What a failed call leaves: splice_error (default), drop or keep.")
+    String onError;
+
+    @Option(names = "--progress", negatable = true, description = "Show a progress bar (default: when on a terminal).")
+    Boolean progress;
+
+    @Override
+    public Integer call() throws Exception {
+      OnError policy = OnError.parse(onError).orElse(null);
+      if (policy == null) {
+        System.err.println("reckoner: --on-error must be splice_error, drop or keep");
+        return 2;
+      }
+      if (!Files.isRegularFile(input)) {
+        System.err.println("reckoner: no such input file: " + input);
+        return 2;
+      }
+      Engine engine;
+      ServiceConfig config;
+      try {
+        config = settings.resolve();
+        engine = Engine.build(config, Clock.systemUTC(), Json.newMapper());
+      } catch (ConfigException e) {
+        System.err.println("reckoner: " + e.getMessage());
+        return 2;
+      }
+      ExecutorService calls = Executors.newFixedThreadPool(Engine.callThreads(config), Service.daemonThreads("reckoner-fill-"));
+      try {
+        PrintStream err = new PrintStream(System.err, true, StandardCharsets.UTF_8);
+        boolean show = progress != null ? progress : System.console() != null;
+        FillCommand.Summary summary = new FillCommand(new Filler(engine.invoker()), Json.newMapper(), calls)
+            .run(input, output, engine.markup(), policy, run, err, show);
+        err.print(summary.describe());
+        return 0;
+      } finally {
+        calls.shutdown();
+      }
     }
   }
 }

@@ -14,17 +14,11 @@ import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
-import reckoner.call.AnswerCache;
-import reckoner.call.Invoker;
-import reckoner.config.ConfigException;
-import reckoner.splice.Markup;
 import reckoner.config.ServiceConfig;
 import reckoner.http.HttpApi;
 import reckoner.spec.Json;
 import reckoner.spec.OpenApi;
-import reckoner.spec.SpecLoader;
 import reckoner.spec.ToolCatalog;
-import reckoner.tool.ToolRegistry;
 import tools.jackson.databind.json.JsonMapper;
 
 /**
@@ -46,17 +40,9 @@ public final class Service implements AutoCloseable {
 
   public static Service start(ServiceConfig config, Clock clock) {
     JsonMapper json = Json.newMapper();
-    ToolCatalog catalog = ToolCatalog.of(ToolRegistry.of(Tools.standard()), new SpecLoader(json));
-    AnswerCache cache = AnswerCache.ofMaximumSize(config.cacheSize());
-    Invoker invoker = new Invoker(catalog, clock, cache);
-    Markup markup;
-    try {
-      markup = new Markup(config.markupOpen(), config.markupSeparator(), config.markupClose());
-    } catch (IllegalArgumentException e) {
-      throw new ConfigException("markup-open, markup-separator, markup-close: " + e.getMessage());
-    }
-    int threads = config.callThreads() == 0 ? Runtime.getRuntime().availableProcessors() : config.callThreads();
-    ExecutorService calls = Executors.newFixedThreadPool(threads, daemonThreads("reckoner-call-"));
+    Engine engine = Engine.build(config, clock, json);
+    ToolCatalog catalog = engine.catalog();
+    ExecutorService calls = Executors.newFixedThreadPool(Engine.callThreads(config), daemonThreads("reckoner-call-"));
 
     PrometheusMeterRegistry metrics = new PrometheusMeterRegistry(PrometheusConfig.DEFAULT);
     new JvmMemoryMetrics().bindTo(metrics);
@@ -64,11 +50,11 @@ public final class Service implements AutoCloseable {
     new JvmThreadMetrics().bindTo(metrics);
     new ProcessorMetrics().bindTo(metrics);
     new UptimeMetrics().bindTo(metrics);
-    CaffeineCacheMetrics.monitor(metrics, cache.caffeine(), "answers");
+    CaffeineCacheMetrics.monitor(metrics, engine.cache().caffeine(), "answers");
 
-    HttpApi.Settings settings = new HttpApi.Settings(config.maxBodyBytes(), config.maxBatchBytes(), markup,
+    HttpApi.Settings settings = new HttpApi.Settings(config.maxBodyBytes(), config.maxBatchBytes(), engine.markup(),
         OpenApi.assemble(catalog, json, VERSION), () -> !catalog.all().isEmpty(), calls);
-    Javalin http = HttpApi.create(invoker, metrics, json, settings);
+    Javalin http = HttpApi.create(engine.invoker(), metrics, json, settings);
     http.start(config.host(), config.port());
     LOG.info("serving {} tool versions on http://{}:{} (data dir {})", catalog.all().size(), config.host(), http.port(),
         config.dataDir());
@@ -80,7 +66,7 @@ public final class Service implements AutoCloseable {
     return new Service(http, calls);
   }
 
-  private static java.util.concurrent.ThreadFactory daemonThreads(String prefix) {
+  static java.util.concurrent.ThreadFactory daemonThreads(String prefix) {
     java.util.concurrent.atomic.AtomicInteger n = new java.util.concurrent.atomic.AtomicInteger();
     return r -> {
       Thread t = new Thread(r, prefix + n.incrementAndGet());

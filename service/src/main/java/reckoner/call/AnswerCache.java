@@ -6,10 +6,11 @@ import java.util.Objects;
 import java.util.Optional;
 import reckoner.tool.Answer;
 import reckoner.tool.Arguments;
+import reckoner.tool.ToolError;
 import reckoner.tool.ToolId;
 
 /**
- * Answers already computed, keyed by tool version, canonical arguments and the data version the
+ * Answers (and tool errors) already computed, keyed by tool version, canonical arguments and the data version the
  * answer depends on (fact sets). Canonical arguments already hold the reference time ({@code
  * as_of}), so a different reference time is a different key; an answer that read the server clock
  * is never stored. Bounded by entry count; thread-safe.
@@ -23,9 +24,18 @@ public final class AnswerCache {
     }
   }
 
-  private final Cache<Key, Answer> cache;
+  /** A cached result: the answer, or the error the tool gave (deterministic too). Exactly one is set. */
+  record Result(Answer answer, ToolError error) {
+    Result {
+      if ((answer == null) == (error == null)) {
+        throw new IllegalArgumentException("exactly one of answer or error");
+      }
+    }
+  }
 
-  private AnswerCache(Cache<Key, Answer> cache) {
+  private final Cache<Key, Result> cache;
+
+  private AnswerCache(Cache<Key, Result> cache) {
     this.cache = cache;
   }
 
@@ -42,14 +52,19 @@ public final class AnswerCache {
     return cache;
   }
 
-  Optional<Answer> get(Key key) {
+  Optional<Result> get(Key key) {
     return Optional.ofNullable(cache.getIfPresent(key));
   }
 
   void put(Key key, Answer answer) {
     if (answer.cacheable()) {
-      cache.put(key, answer);
+      cache.put(key, new Result(answer, null));
     }
+  }
+
+  /** Keeps a tool's error for canonical arguments: the same arguments always fail the same way. */
+  void put(Key key, ToolError error) {
+    cache.put(key, new Result(null, error));
   }
 
   /** Drops every entry (used by tests and after administrative data changes). */

@@ -1,6 +1,6 @@
 package reckoner.call;
 
-import java.security.SecureRandom;
+import java.util.concurrent.ThreadLocalRandom;
 import java.time.Clock;
 import java.util.UUID;
 
@@ -11,7 +11,6 @@ import java.util.UUID;
  */
 public final class InvocationIds {
   private final Clock clock;
-  private final SecureRandom random = new SecureRandom();
   private long lastMillis = -1;
   private int counter;
 
@@ -32,13 +31,14 @@ public final class InvocationIds {
           counter = 0;
         }
       } else {
-        counter = random.nextInt(0x400); // leave headroom for ids within this millisecond
+        counter = ThreadLocalRandom.current().nextInt(0x400); // leave headroom for ids within this millisecond
       }
       lastMillis = millis;
       seq = counter;
     }
     long msb = (millis << 16) | 0x7000L | seq;
-    long lsb = (random.nextLong() & 0x3FFFFFFFFFFFFFFFL) | 0x8000000000000000L;
+    // Ids must be unique, not secret: a fast per-thread generator fills the 62 random bits.
+    long lsb = (ThreadLocalRandom.current().nextLong() & 0x3FFFFFFFFFFFFFFFL) | 0x8000000000000000L;
     return new UUID(msb, lsb);
   }
 }

@@ -84,12 +84,18 @@ public final class Invoker {
       Tool tool = entry.get().tool();
       canonical = tool.canonicalize(args);
       AnswerCache.Key key = new AnswerCache.Key(toolId, canonical, tool.dataVersion(canonical).orElse(null));
-      Optional<Answer> hit = cache.get(key);
+      Optional<AnswerCache.Result> hit = cache.get(key);
       if (hit.isPresent()) {
-        return new Outcome(id, Optional.of(toolId), Optional.of(canonical), hit, Optional.empty(), true,
-            System.nanoTime() - start);
+        return new Outcome(id, Optional.of(toolId), Optional.of(canonical), Optional.ofNullable(hit.get().answer()),
+            Optional.ofNullable(hit.get().error()), true, System.nanoTime() - start);
       }
-      Answer answer = tool.invoke(canonical, context);
+      Answer answer;
+      try {
+        answer = tool.invoke(canonical, context);
+      } catch (ToolException e) {
+        cache.put(key, e.error());
+        throw e;
+      }
       Answer clean = new Answer(ResultText.clean(answer.text(), ResultText.DEFAULT_MAX_LENGTH),
           answer.cacheable(), answer.clockReadAt(), answer.dataVersion());
       if (Objects.equals(key.dataVersion(), clean.dataVersion().orElse(null))) { // a reload in between: don't keep it

@@ -17,6 +17,7 @@ import java.util.concurrent.Future;
 import reckoner.call.CallRequest;
 import reckoner.call.Invoker;
 import reckoner.call.Outcome;
+import reckoner.io.LineReader;
 import reckoner.tool.ErrorCode;
 import reckoner.tool.ToolError;
 import tools.jackson.core.JacksonException;

@@ -88,7 +88,7 @@ public final class Filler {
   private Spliced answer(int position, CallText call, Markup markup, Tags tags) {
     Outcome outcome = invoker.invokeText(call.tool(), call.version(), call.input(), tags.asOf(), tags.run(), tags.refAt(position));
     String spliced = markup.open() + call + markup.separator() + outcome.text() + markup.close();
-    if (!parsesBack(spliced, call, outcome.text(), markup)) {
+    if (markup.occursIn(outcome.text()) || !parsesBack(spliced, call, outcome.text(), markup)) {
       ToolError refused = ToolError.of(ErrorCode.UNSPLICEABLE, "the answer holds a markup string ('" + markup.open() + "', '"
           + markup.separator() + "' or '" + markup.close() + "') and cannot be spliced");
       outcome = new Outcome(outcome.invocationId(), outcome.tool(), outcome.canonical(), Optional.empty(), Optional.of(refused),

@@ -1,4 +1,4 @@
-package reckoner.http;
+package reckoner.io;
 
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
@@ -9,10 +9,10 @@ import java.io.InputStream;
  * most one line of at most {@code maxLine} bytes; a longer line is skipped to its end and reported
  * as too long, so one huge line cannot exhaust memory. Not thread-safe.
  */
-final class LineReader {
+public final class LineReader {
   /** One line without its terminator; {@code tooLong} lines carry no bytes. */
-  record Line(long number, byte[] bytes, boolean tooLong) {
-    boolean isBlank() {
+  public record Line(long number, byte[] bytes, boolean tooLong) {
+    public boolean isBlank() {
       if (tooLong) {
         return false;
       }
@@ -33,13 +33,13 @@ final class LineReader {
   private long number;
   private final ByteArrayOutputStream current = new ByteArrayOutputStream(256);
 
-  LineReader(InputStream in, long maxLine) {
+  public LineReader(InputStream in, long maxLine) {
     this.in = in;
     this.maxLine = maxLine;
   }
 
   /** The next line, or null at the end of the stream. */
-  Line next() throws IOException {
+  public Line next() throws IOException {
     current.reset();
     boolean tooLong = false;
     boolean sawAny = false;
