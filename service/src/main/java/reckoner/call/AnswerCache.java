@@ -34,9 +34,11 @@ public final class AnswerCache {
   }
 
   private final Cache<Key, Result> cache;
+  private final boolean enabled; // Caffeine's size 0 evicts later, not at once: 0 must mean off
 
-  private AnswerCache(Cache<Key, Result> cache) {
+  private AnswerCache(Cache<Key, Result> cache, boolean enabled) {
     this.cache = cache;
+    this.enabled = enabled;
   }
 
   /** A cache of at most {@code maximumSize} answers; 0 disables caching. */
@@ -44,7 +46,7 @@ public final class AnswerCache {
     if (maximumSize < 0) {
       throw new IllegalArgumentException("maximum size must not be negative: " + maximumSize);
     }
-    return new AnswerCache(Caffeine.newBuilder().maximumSize(maximumSize).recordStats().build());
+    return new AnswerCache(Caffeine.newBuilder().maximumSize(maximumSize).recordStats().build(), maximumSize > 0);
   }
 
   /** The underlying Caffeine cache, for metrics binding only. */
@@ -53,18 +55,20 @@ public final class AnswerCache {
   }
 
   Optional<Result> get(Key key) {
-    return Optional.ofNullable(cache.getIfPresent(key));
+    return enabled ? Optional.ofNullable(cache.getIfPresent(key)) : Optional.empty();
   }
 
   void put(Key key, Answer answer) {
-    if (answer.cacheable()) {
+    if (enabled && answer.cacheable()) {
       cache.put(key, new Result(answer, null));
     }
   }
 
   /** Keeps a tool's error for canonical arguments: the same arguments always fail the same way. */
   void put(Key key, ToolError error) {
-    cache.put(key, new Result(null, error));
+    if (enabled) {
+      cache.put(key, new Result(null, error));
+    }
   }
 
   /** Drops every entry (used by tests and after administrative data changes). */
