@@ -37,13 +37,13 @@ public final class ArithTool implements Tool {
     if (places.isPresent() && digits.isPresent()) {
       throw new ToolException(ErrorCode.INVALID_ARGUMENT, "give either places or digits, not both");
     }
-    Arguments canonical = Arguments.empty()
-        .with("expr", expr)
-        .with("rounding", Rounding.require(structured.string("rounding").orElse("half_even")).wireName())
-        .with("pad_zeros", structured.bool("pad_zeros").orElse(false));
-    return digits.isPresent()
-        ? canonical.with("digits", digits.get())
-        : canonical.with("places", places.orElse(DEFAULT_PLACES));
+    Arguments.Builder canonical = Arguments.builder()
+        .put("expr", expr)
+        .put("rounding", Rounding.require(structured.string("rounding").orElse("half_even")).wireName())
+        .put("pad_zeros", structured.bool("pad_zeros").orElse(false));
+    return (digits.isPresent()
+        ? canonical.put("digits", digits.get())
+        : canonical.put("places", places.orElse(DEFAULT_PLACES))).build();
   }
 
   @Override

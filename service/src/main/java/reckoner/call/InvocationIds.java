@@ -1,6 +1,7 @@
 package reckoner.call;
 
 import java.util.concurrent.ThreadLocalRandom;
+import java.util.concurrent.atomic.AtomicLong;
 import java.time.Clock;
 import java.util.UUID;
 
@@ -11,8 +12,8 @@ import java.util.UUID;
  */
 public final class InvocationIds {
   private final Clock clock;
-  private long lastMillis = -1;
-  private int counter;
+  /** The last id's {@code millis << 12 | counter}; advanced by compare-and-set, so no lock is held. */
+  private final AtomicLong last = new AtomicLong();
 
   public InvocationIds(Clock clock) {
     this.clock = clock;
@@ -20,22 +21,18 @@ public final class InvocationIds {
 
   /** Returns the next id. */
   public UUID next() {
-    long millis;
-    int seq;
-    synchronized (this) {
-      millis = Math.max(clock.millis(), lastMillis);
-      if (millis == lastMillis) {
-        counter++;
-        if (counter > 0xFFF) { // counter exhausted: borrow the next millisecond, keep order
-          millis++;
-          counter = 0;
-        }
-      } else {
-        counter = ThreadLocalRandom.current().nextInt(0x400); // leave headroom for ids within this millisecond
-      }
-      lastMillis = millis;
-      seq = counter;
-    }
+    long now = clock.millis() << 12;
+    long prev;
+    long next;
+    do {
+      prev = last.get();
+      // A new millisecond starts its counter at a random point in the lower quarter, leaving
+      // headroom; within a millisecond (or if the clock stepped back) the counter goes up by one
+      // and carries into the millisecond, so ids never go backwards.
+      next = now > prev ? now | ThreadLocalRandom.current().nextInt(0x400) : prev + 1;
+    } while (!last.compareAndSet(prev, next));
+    long millis = next >>> 12;
+    long seq = next & 0xFFF;
     long msb = (millis << 16) | 0x7000L | seq;
     // Ids must be unique, not secret: a fast per-thread generator fills the 62 random bits.
     long lsb = (ThreadLocalRandom.current().nextLong() & 0x3FFFFFFFFFFFFFFFL) | 0x8000000000000000L;

@@ -17,9 +17,14 @@ import reckoner.call.Outcome;
 public final class CallMetrics {
   private static final Logger LOG = LoggerFactory.getLogger(CallMetrics.class);
   private final MeterRegistry registry;
+  private final java.util.concurrent.ConcurrentHashMap<String, Counter> counters = new java.util.concurrent.ConcurrentHashMap<>();
+  private final java.util.concurrent.ConcurrentHashMap<String, Timer> timers = new java.util.concurrent.ConcurrentHashMap<>();
+  private final Counter cacheHits;
 
   public CallMetrics(MeterRegistry registry) {
     this.registry = registry;
+    this.cacheHits = Counter.builder("reckoner.calls.cached").description("Calls answered from the answer cache")
+        .register(registry);
   }
 
   public void record(Outcome outcome) {
@@ -27,19 +32,21 @@ public final class CallMetrics {
       String tool = outcome.tool().map(t -> t.name()).orElse("unknown");
       String version = outcome.tool().map(t -> Integer.toString(t.version())).orElse("none");
       String result = outcome.isOk() ? "ok" : outcome.error().get().code().wireName();
-      Counter.builder("reckoner.calls")
+      // Meters are looked up once per label set: registering on every call costs more than the call.
+      counters.computeIfAbsent(tool + '\u0000' + version + '\u0000' + result, k -> Counter.builder("reckoner.calls")
           .description("Tool calls by outcome: ok or the error code")
           .tags("tool", tool, "version", version, "outcome", result)
-          .register(registry)
-          .increment();
-      Timer.builder("reckoner.call.duration")
+          .register(registry)).increment();
+      timers.computeIfAbsent(tool + '\u0000' + version, k -> Timer.builder("reckoner.call.duration")
           .description("Time to run one call inside the service, from arguments to answer")
           .tags("tool", tool, "version", version)
           .publishPercentileHistogram()
           .minimumExpectedValue(Duration.ofNanos(1_000))
           .maximumExpectedValue(Duration.ofSeconds(1))
-          .register(registry)
-          .record(outcome.elapsedNanos(), TimeUnit.NANOSECONDS);
+          .register(registry)).record(outcome.elapsedNanos(), TimeUnit.NANOSECONDS);
+      if (outcome.cached()) {
+        cacheHits.increment();
+      }
     } catch (RuntimeException e) {
       LOG.warn("metrics failed; the call is unaffected", e);
     }

@@ -21,6 +21,7 @@ public final class Arguments {
   private static final Arguments EMPTY = new Arguments(new TreeMap<>());
   private final TreeMap<String, Object> values;
   private String canonicalJson; // computed once, racy but idempotent
+  private int hash; // likewise; 0 = not yet computed
 
   private Arguments(TreeMap<String, Object> values) {
     this.values = values;
@@ -39,6 +40,27 @@ public final class Arguments {
 
   public static Arguments of(String name, Object value) {
     return of(Map.of(name, value));
+  }
+
+  /** A builder for arguments with many entries: one map, one copy at the end. */
+  public static Builder builder() {
+    return new Builder();
+  }
+
+  /** Collects entries, then {@link #build()}s immutable arguments. Not thread-safe. */
+  public static final class Builder {
+    private final TreeMap<String, Object> values = new TreeMap<>();
+
+    private Builder() {}
+
+    public Builder put(String name, Object value) {
+      values.put(Objects.requireNonNull(name, "name"), normalise(name, value));
+      return this;
+    }
+
+    public Arguments build() {
+      return new Arguments(new TreeMap<>(values));
+    }
   }
 
   /** Returns a copy with {@code name} set to {@code value}. This instance is unaffected. */
@@ -161,7 +183,11 @@ public final class Arguments {
 
   @Override
   public int hashCode() {
-    return values.hashCode();
+    int h = hash;
+    if (h == 0) {
+      h = hash = values.hashCode() | 1;
+    }
+    return h;
   }
 
   @Override

@@ -67,4 +67,23 @@ final class InvokerTest {
       previous = next;
     }
   }
+
+  @Test
+  void invocationIds_fromManyThreads_areUnique() throws Exception {
+    InvocationIds ids = new InvocationIds(Clock.systemUTC());
+    java.util.Set<UUID> seen = java.util.concurrent.ConcurrentHashMap.newKeySet();
+    Thread[] threads = new Thread[4];
+    for (int t = 0; t < threads.length; t++) {
+      threads[t] = new Thread(() -> {
+        for (int i = 0; i < 50_000; i++) {
+          seen.add(ids.next());
+        }
+      });
+      threads[t].start();
+    }
+    for (Thread t : threads) {
+      t.join();
+    }
+    assertEquals(200_000, seen.size());
+  }
 }
