@@ -27,6 +27,44 @@ public final class CallMetrics {
         .register(registry);
   }
 
+  /** Per tool version: calls by outcome so far, and the call time percentiles (p50, p99) in seconds. */
+  public record ToolStats(String tool, String version, java.util.Map<String, Long> callsByOutcome, double p50, double p99) {
+    public long calls() {
+      return callsByOutcome.values().stream().mapToLong(Long::longValue).sum();
+    }
+
+    public long errors() {
+      return calls() - callsByOutcome.getOrDefault("ok", 0L);
+    }
+  }
+
+  /** A snapshot of every tool version seen so far, sorted by tool and version. */
+  public java.util.List<ToolStats> snapshot() {
+    java.util.Map<String, java.util.Map<String, Long>> byTool = new java.util.TreeMap<>();
+    counters.forEach((key, counter) -> {
+      String[] parts = key.split("\u0000");
+      byTool.computeIfAbsent(parts[0] + '\u0000' + parts[1], k -> new java.util.TreeMap<>()).put(parts[2], (long) counter.count());
+    });
+    java.util.List<ToolStats> out = new java.util.ArrayList<>();
+    byTool.forEach((key, outcomes) -> {
+      Timer timer = timers.get(key);
+      double p50 = Double.NaN;
+      double p99 = Double.NaN;
+      if (timer != null) {
+        for (io.micrometer.core.instrument.distribution.ValueAtPercentile v : timer.takeSnapshot().percentileValues()) {
+          if (v.percentile() == 0.5) {
+            p50 = v.value(TimeUnit.SECONDS);
+          } else if (v.percentile() == 0.99) {
+            p99 = v.value(TimeUnit.SECONDS);
+          }
+        }
+      }
+      String[] parts = key.split("\u0000");
+      out.add(new ToolStats(parts[0], parts[1], outcomes, p50, p99));
+    });
+    return out;
+  }
+
   public void record(Outcome outcome) {
     try {
       String tool = outcome.tool().map(t -> t.name()).orElse("unknown");
@@ -41,6 +79,7 @@ public final class CallMetrics {
           .description("Time to run one call inside the service, from arguments to answer")
           .tags("tool", tool, "version", version)
           .publishPercentileHistogram()
+          .publishPercentiles(0.5, 0.99) // for the status page, over Micrometer's decaying window
           .minimumExpectedValue(Duration.ofNanos(1_000))
           .maximumExpectedValue(Duration.ofSeconds(1))
           .register(registry)).record(outcome.elapsedNanos(), TimeUnit.NANOSECONDS);

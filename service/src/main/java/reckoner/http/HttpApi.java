@@ -38,6 +38,7 @@ public final class HttpApi {
     ToolRoutes tools = new ToolRoutes(invoker, responses, callMetrics, bodies);
     BatchRoutes batch = new BatchRoutes(invoker, responses, callMetrics, new Bodies(settings.maxBatchBytes()),
         settings.callExecutor());
+    StatusPage status = new StatusPage(callMetrics, responses, java.time.Clock.systemUTC());
     SpliceRoutes splice = new SpliceRoutes(new Filler(invoker), responses, callMetrics, new Bodies(settings.maxBatchBytes()),
         settings.markup());
     byte[] openApi = json.writeValueAsBytes(settings.openApi());
@@ -58,6 +59,7 @@ public final class HttpApi {
       config.routes.get("/health/live", ctx -> responses.json(ctx, 200, responses.object().put("status", "up")));
       config.routes.get("/health/ready", ctx -> ready(ctx, responses, settings.ready()));
       config.routes.get("/metrics", ctx -> ctx.contentType("text/plain; version=0.0.4; charset=utf-8").result(metrics.scrape()));
+      config.routes.get("/status", status::show);
       config.routes.get("/problems/{code}", ctx -> problemType(ctx, responses));
 
       config.routes.exception(ApiException.class, (e, ctx) -> responses.problem(ctx, e.error(), e.headers()));
