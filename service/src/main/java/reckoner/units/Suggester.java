@@ -11,39 +11,41 @@ import java.util.Set;
 /**
  * Finds the known spellings nearest to an unknown unit word, for {@code unknown_unit}
  * suggestions: edit distance (insertions, deletions, substitutions and swaps of neighbours)
- * ignoring case, a case difference breaking ties, at most one suggestion per unit, at most three.
- * Deterministic: ties are broken by the spelling's order. Immutable; thread-safe.
+ * ignoring case, at most one suggestion per unit, at most three. Deterministic: ties go to the
+ * unit nearer the top of the table, then to the spelling's order. Immutable; thread-safe.
  */
 final class Suggester {
   static final int MAX_SUGGESTIONS = 3;
   private static final List<Prefix> COMMON = List.of(Prefix.KILO, Prefix.CENTI, Prefix.MILLI, Prefix.MICRO,
       Prefix.MEGA, Prefix.GIGA);
 
-  private record Candidate(String text, String folded, String unitKey) {}
+  private record Candidate(String text, String folded, String unitKey, int row) {}
 
   private final List<Candidate> candidates;
 
   Suggester(List<UnitDef> rows) {
     Map<String, Candidate> byText = new LinkedHashMap<>();
+    int row = 0;
     for (UnitDef def : rows) {
+      row++;
       if (def.isAmbiguous()) {
         continue;
       }
       List<String> spellings = new ArrayList<>(def.symbols());
       spellings.addAll(def.names());
       for (String s : spellings) {
-        byText.putIfAbsent(s, new Candidate(s, Words.fold(s), def.key()));
+        byText.putIfAbsent(s, new Candidate(s, Words.fold(s), def.key(), row));
       }
       if (def.prefixes() == Prefix.Policy.ALL) {
         for (Prefix p : COMMON) {
           String key = def.key() + "@" + p.symbol;
           for (String s : def.symbols()) {
             String t = p.symbol + s;
-            byText.putIfAbsent(t, new Candidate(t, Words.fold(t), key));
+            byText.putIfAbsent(t, new Candidate(t, Words.fold(t), key, row));
           }
           for (String s : def.names()) {
             String t = p.word + s;
-            byText.putIfAbsent(t, new Candidate(t, Words.fold(t), key));
+            byText.putIfAbsent(t, new Candidate(t, Words.fold(t), key, row));
           }
         }
       }
@@ -65,7 +67,8 @@ final class Suggester {
         scored.add(new Scored(c, d));
       }
     }
-    scored.sort(Comparator.comparingInt(Scored::score).thenComparing(s -> s.c.text));
+    // Ties go to the row nearer the top of the table, where the common units are (km before kM).
+    scored.sort(Comparator.comparingInt(Scored::score).thenComparingInt(s -> s.c.row).thenComparing(s -> s.c.text));
     List<String> out = new ArrayList<>();
     Set<String> units = new HashSet<>();
     for (Scored s : scored) {

@@ -45,6 +45,9 @@ final class TextForm {
       throw new ToolException(ErrorCode.INVALID_ARGUMENT, "write the value without grouping separators, as in 1000 or 1500.5");
     }
     List<String> words = Arrays.asList(rest.split(" "));
+    if (words.stream().filter(w -> w.equalsIgnoreCase("to")).count() > 1) {
+      throw form("the text has more than one 'to'");
+    }
     Split split = trySplits(words, "to", table);
     if (split.chosen == null && split.firstError == null) {
       split = trySplits(words, "in", table);
