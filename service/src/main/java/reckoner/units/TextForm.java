@@ -25,9 +25,15 @@ final class TextForm {
   /** The structured form of a text call. */
   record Parsed(BigDecimal value, String from, String to) {}
 
+  /** Reads a unit expression; the tool passes its cached parser. */
+  @FunctionalInterface
+  interface UnitReader {
+    Unit read(String expression) throws ToolException;
+  }
+
   private TextForm() {}
 
-  static Parsed parse(String text, UnitTable table) throws ToolException {
+  static Parsed parse(String text, UnitReader units) throws ToolException {
     String s = ResultText.clean(text, Math.max(1, text.length()));
     if (s.length() > 1000) {
       throw new ToolException(ErrorCode.LIMIT_EXCEEDED, "the text may have at most 1000 characters but has " + s.length());
@@ -48,9 +54,9 @@ final class TextForm {
     if (words.stream().filter(w -> w.equalsIgnoreCase("to")).count() > 1) {
       throw form("the text has more than one 'to'");
     }
-    Split split = trySplits(words, "to", table);
+    Split split = trySplits(words, "to", units);
     if (split.chosen == null && split.firstError == null) {
-      split = trySplits(words, "in", table);
+      split = trySplits(words, "in", units);
     }
     if (split.chosen != null) {
       return new Parsed(value, split.chosen[0], split.chosen[1]);
@@ -80,7 +86,7 @@ final class TextForm {
     ToolException firstError;
   }
 
-  private static Split trySplits(List<String> words, String keyword, UnitTable table) throws ToolException {
+  private static Split trySplits(List<String> words, String keyword, UnitReader units) throws ToolException {
     Split result = new Split();
     List<String[]> valid = new ArrayList<>();
     for (int i = 1; i < words.size() - 1; i++) {
@@ -90,8 +96,8 @@ final class TextForm {
       String from = String.join(" ", words.subList(0, i));
       String to = String.join(" ", words.subList(i + 1, words.size()));
       try {
-        UnitParser.parse(from, table);
-        UnitParser.parse(to, table);
+        units.read(from);
+        units.read(to);
         valid.add(new String[] {from, to});
       } catch (ToolException e) {
         if (result.firstError == null) {

@@ -124,7 +124,7 @@ final class UnitParser {
 
   private Term power() throws ToolException {
     skipSpaces();
-    if (table.phrase(text, pos).isEmpty()) {
+    {
       for (String[] modifier : new String[][] {{"square", "2"}, {"sq", "2"}, {"cubic", "3"}, {"cu", "3"}}) {
         if (atKeyword(modifier[0])) {
           pos += modifier[0].length();
@@ -217,6 +217,12 @@ final class UnitParser {
     if (atEnd()) {
       throw syntax("expected a unit at the end");
     }
+    Optional<UnitTable.PhraseMatch> phrase = table.phrase(text, pos);
+    if (phrase.isPresent()) {
+      String word = text.substring(pos, phrase.get().end());
+      pos = phrase.get().end();
+      return term(phrase.get().resolved(), word);
+    }
     char c = text.charAt(pos);
     if (c == '(') {
       if (++depth > MAX_DEPTH) {
@@ -234,12 +240,6 @@ final class UnitParser {
     }
     if (isDigit(c) || (c == '.' && pos + 1 < text.length() && isDigit(text.charAt(pos + 1)))) {
       return number();
-    }
-    Optional<UnitTable.PhraseMatch> phrase = table.phrase(text, pos);
-    if (phrase.isPresent()) {
-      String word = text.substring(pos, phrase.get().end());
-      pos = phrase.get().end();
-      return term(phrase.get().resolved(), word);
     }
     if (Words.isSignWord(c)) {
       pos++;
@@ -402,9 +402,11 @@ final class UnitParser {
   /** Whether the word {@code keyword} (any case) starts here and ends at a word boundary. */
   private boolean atKeyword(String keyword) {
     int end = pos + keyword.length();
-    return end <= text.length() && text.regionMatches(true, pos, keyword, 0, keyword.length())
-        && (end == text.length() || !Words.isWordPart(text.charAt(end)))
-        && table.phrase(text, pos).isEmpty();
+    if (end > text.length() || !text.regionMatches(true, pos, keyword, 0, keyword.length())
+        || (end < text.length() && Words.isWordPart(text.charAt(end)))) {
+      return false;
+    }
+    return table.phrase(text, pos).isEmpty(); // "per cent" is a unit, not a quotient
   }
 
   private int skipSpaces() {

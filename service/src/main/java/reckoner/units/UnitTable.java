@@ -35,8 +35,11 @@ final class UnitTable {
   static final String MIXED = "mixed";
   private static final Pattern LITERAL = Pattern.compile(
       "(pi|[0-9]+(\\.[0-9]+)?(e[-+]?[0-9]+)?)([*/](pi|[0-9]+(\\.[0-9]+)?(e[-+]?[0-9]+)?))*");
-  private static final List<Prefix> PREFIXES_LONGEST_FIRST = Arrays.stream(Prefix.values())
-      .sorted(Comparator.comparingInt((Prefix p) -> -p.symbol.length())).toList();
+  /** Every input spelling of every prefix with its prefix, longest spelling first. */
+  private static final List<Map.Entry<String, Prefix>> PREFIX_SPELLINGS = Arrays.stream(Prefix.values())
+      .flatMap(p -> p.inputSymbols().stream().map(s -> Map.entry(s, p)))
+      .sorted(Comparator.comparingInt((Map.Entry<String, Prefix> e) -> -e.getKey().length()))
+      .toList();
 
   /** A word read as a row, possibly with a prefix (null when none). */
   record Resolved(UnitDef def, Prefix prefix) {}
@@ -45,6 +48,9 @@ final class UnitTable {
   record PhraseMatch(Resolved resolved, int end) {}
 
   private record Phrase(String text, boolean caseSensitive, Resolved resolved) {}
+
+  /** Phrases by their first word, folded; each list longest first. */
+  private final Map<String, List<Phrase>> phrasesByFirst = new HashMap<>();
 
   private final List<UnitDef> rows = new ArrayList<>();
   private final Map<String, UnitDef> byKey = new HashMap<>();
@@ -250,8 +256,11 @@ final class UnitTable {
         throw new IllegalArgumentException("phrase '" + text + "' is used twice");
       }
     }
-    phrases.add(new Phrase(text, caseSensitive, resolved));
-    phrases.sort(Comparator.comparingInt((Phrase p) -> -p.text.length()).thenComparing(Phrase::text));
+    Phrase phrase = new Phrase(text, caseSensitive, resolved);
+    phrases.add(phrase);
+    List<Phrase> bucket = phrasesByFirst.computeIfAbsent(firstWord(text, 0), c -> new ArrayList<>());
+    bucket.add(phrase);
+    bucket.sort(Comparator.comparingInt((Phrase p) -> -p.text.length()).thenComparing(Phrase::text));
   }
 
   private static void putUnique(Map<String, UnitDef> map, String k, UnitDef def, String what) {
@@ -339,13 +348,12 @@ final class UnitTable {
     if (def != null) {
       return Optional.of(new Resolved(def, null));
     }
-    for (Prefix p : PREFIXES_LONGEST_FIRST) {
-      for (String spelling : p.inputSymbols()) {
-        if (word.length() > spelling.length() && word.startsWith(spelling)) {
-          UnitDef d = bySymbol.get(word.substring(spelling.length()));
-          if (d != null && d.prefixes().allows(p)) {
-            return Optional.of(new Resolved(d, p));
-          }
+    for (Map.Entry<String, Prefix> e : PREFIX_SPELLINGS) {
+      String spelling = e.getKey();
+      if (word.length() > spelling.length() && word.startsWith(spelling)) {
+        UnitDef d = bySymbol.get(word.substring(spelling.length()));
+        if (d != null && d.prefixes().allows(e.getValue())) {
+          return Optional.of(new Resolved(d, e.getValue()));
         }
       }
     }
@@ -365,7 +373,14 @@ final class UnitTable {
    * or {@code pound-force}) that starts at {@code pos} of {@code text} and ends at a word boundary.
    */
   Optional<PhraseMatch> phrase(String text, int pos) {
-    for (Phrase p : phrases) {
+    if (pos >= text.length()) {
+      return Optional.empty();
+    }
+    List<Phrase> bucket = phrasesByFirst.get(firstWord(text, pos));
+    if (bucket == null) {
+      return Optional.empty();
+    }
+    for (Phrase p : bucket) {
       int end = pos + p.text.length();
       if (end <= text.length() && text.regionMatches(!p.caseSensitive, pos, p.text, 0, p.text.length())
           && (end == text.length() || !Words.isWordPart(text.charAt(end)) || !Words.isWordPart(p.text.charAt(p.text.length() - 1)))) {
@@ -373,6 +388,15 @@ final class UnitTable {
       }
     }
     return Optional.empty();
+  }
+
+  /** The run of word characters at {@code pos}, folded: the key phrases are filed under. */
+  private static String firstWord(String text, int pos) {
+    int end = pos;
+    while (end < text.length() && Words.isWordPart(text.charAt(end))) {
+      end++;
+    }
+    return Words.fold(text.substring(pos, Math.max(end, Math.min(pos + 1, text.length()))));
   }
 
   /** Up to three known spellings nearest to an unknown word. */
@@ -384,7 +408,7 @@ final class UnitTable {
   List<String> readingSymbols(UnitDef ambiguous, Prefix prefix) {
     List<String> out = new ArrayList<>();
     for (String spec : ambiguous.readings()) {
-      out.add(reading(spec).symbol(prefix));
+      out.add(written(reading(spec), prefix));
     }
     return out;
   }
@@ -394,12 +418,19 @@ final class UnitTable {
     List<String> parts = new ArrayList<>();
     for (String spec : ambiguous.readings()) {
       Reading r = reading(spec);
-      parts.add(r.name(prefix) + " (" + r.symbol(prefix) + ")");
+      parts.add(r.name(prefix) + " (" + written(r, prefix) + ")");
     }
     if (parts.size() == 1) {
       return parts.get(0);
     }
     return String.join(", ", parts.subList(0, parts.size() - 1)) + " or " + parts.get(parts.size() - 1);
+  }
+
+  /** How a reading is written so that it parses as itself: its symbol, or its name where the symbol is ambiguous (kt). */
+  private String written(Reading r, Prefix outer) {
+    String symbol = r.symbol(outer);
+    UnitDef d = bySymbol.get(symbol);
+    return d != null && d.isAmbiguous() ? r.name(outer) : symbol;
   }
 
   /** Symbols that are also a prefix before another symbol; the exact symbol wins. For review in tests. */

@@ -55,7 +55,7 @@ public final class UnitsTool implements Tool {
       if (args.has("value") || args.has("from") || args.has("to")) {
         throw new ToolException(ErrorCode.INVALID_ARGUMENT, "give either text or value, from and to, not both");
       }
-      TextForm.Parsed p = TextForm.parse(text.get(), table);
+      TextForm.Parsed p = TextForm.parse(text.get(), this::unit);
       structured = args.without(Arguments.TEXT).with("value", p.value()).with("from", p.from()).with("to", p.to());
     }
     BigDecimal value = value(structured);
