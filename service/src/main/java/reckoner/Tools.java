@@ -3,6 +3,7 @@ package reckoner;
 import java.util.List;
 import reckoner.arith.ArithTool;
 import reckoner.tool.Tool;
+import reckoner.units.UnitsTool;
 
 /** The tool versions this build serves, listed explicitly. A new version is one more line. */
 public final class Tools {
@@ -10,6 +11,7 @@ public final class Tools {
 
   public static List<Tool> standard() {
     return List.of(
-        new ArithTool());
+        new ArithTool(),
+        new UnitsTool());
   }
 }
