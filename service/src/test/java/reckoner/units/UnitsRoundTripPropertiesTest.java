@@ -11,15 +11,11 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Random;
-import net.jqwik.api.Arbitraries;
-import net.jqwik.api.Arbitrary;
-import net.jqwik.api.Combinators;
-import net.jqwik.api.Example;
-import net.jqwik.api.ForAll;
-import net.jqwik.api.GenerationMode;
-import net.jqwik.api.Property;
-import net.jqwik.api.Provide;
-import net.jqwik.api.constraints.IntRange;
+import static org.quicktheories.QuickTheory.qt;
+
+import org.junit.jupiter.api.Test;
+import org.quicktheories.core.Gen;
+import org.quicktheories.impl.Constraint;
 import reckoner.tool.ToolException;
 
 /**
@@ -76,39 +72,46 @@ final class UnitsRoundTripPropertiesTest {
     return out;
   }
 
-  @Example
+  @Test
   void sample_hasAtLeast5000CompatiblePairs() {
     assertTrue(PAIRS.size() >= 5000, "pairs: " + PAIRS.size());
   }
 
-  @Provide
-  Arbitrary<String[]> everyPair() {
-    return Arbitraries.of(PAIRS);
-  }
-
-  @Property(generation = GenerationMode.EXHAUSTIVE, tries = 6000)
-  void everyPair_roundTripsToTheRequestedDigits(@ForAll("everyPair") String[] pair) throws ToolException {
-    Random random = new Random((pair[0] + "|" + pair[1]).hashCode()); // a fixed value set per pair
-    for (int i = 0; i < 3; i++) {
-      int digits = 1 + random.nextInt(15);
-      assertRoundTrip(pair, value(random, digits), digits);
+  /** Exhaustive over the sample: every ordered pair, three fixed values each. */
+  @Test
+  void everyPair_roundTripsToTheRequestedDigits() throws ToolException {
+    for (String[] pair : PAIRS) {
+      Random random = new Random((pair[0] + "|" + pair[1]).hashCode()); // a fixed value set per pair
+      for (int i = 0; i < 3; i++) {
+        int digits = 1 + random.nextInt(15);
+        assertRoundTrip(pair, value(random, digits), digits);
+      }
     }
   }
 
-  @Provide
-  Arbitrary<BigDecimal> values() {
-    Arbitrary<BigInteger> mantissa = Arbitraries.bigIntegers().between(BigInteger.ONE, new BigInteger("999999999999999"));
-    Arbitrary<Integer> exponent = Arbitraries.integers().between(-6, 9);
-    Arbitrary<Boolean> negative = Arbitraries.of(true, false);
-    return Combinators.combine(mantissa, exponent, negative)
-        .as((m, e, n) -> new BigDecimal(n ? m.negate() : m, 0).movePointLeft(6).scaleByPowerOfTen(e - 3));
+  /** Values of up to 15 significant digits over 16 decades, either sign. */
+  static Gen<BigDecimal> values() {
+    return in -> {
+      long mantissa = in.next(Constraint.between(1, 999_999_999_999_999L));
+      int exponent = (int) in.next(Constraint.between(-6, 9));
+      boolean negative = in.next(Constraint.between(0, 1)) == 1;
+      return new BigDecimal(BigInteger.valueOf(negative ? -mantissa : mantissa), 0).movePointLeft(6).scaleByPowerOfTen(exponent - 3);
+    };
   }
 
-  @Property(tries = 2000)
-  void randomPairsAndValues_roundTrip(@ForAll("everyPair") String[] pair, @ForAll("values") BigDecimal raw,
-      @ForAll @IntRange(min = 1, max = 15) int digits) throws ToolException {
-    BigDecimal value = raw.round(new java.math.MathContext(digits, RoundingMode.HALF_EVEN));
-    assertRoundTrip(pair, value, digits);
+  /** Random pairs, values and digit counts on top (QuickTheories, fixed seed). */
+  @Test
+  void randomPairsAndValues_roundTrip() {
+    Gen<String[]> pairs = in -> PAIRS.get((int) in.next(Constraint.between(0, PAIRS.size() - 1)));
+    Gen<Integer> digitCounts = in -> (int) in.next(Constraint.between(1, 15));
+    qt().withExamples(2000).withFixedSeed(5380L).forAll(pairs, values(), digitCounts).checkAssert((pair, raw, digits) -> {
+      BigDecimal value = raw.round(new java.math.MathContext(digits, RoundingMode.HALF_EVEN));
+      try {
+        assertRoundTrip(pair, value, digits);
+      } catch (ToolException e) {
+        throw new AssertionError(pair[0] + " -> " + pair[1] + ": " + e.error().text(), e);
+      }
+    });
   }
 
   private static void assertRoundTrip(String[] pair, BigDecimal value, int digits) throws ToolException {
