@@ -1,0 +1,253 @@
+package reckoner.facts;
+
+import java.io.BufferedReader;
+import java.io.IOException;
+import java.nio.charset.CharacterCodingException;
+import java.time.LocalDate;
+import java.time.format.DateTimeFormatter;
+import java.time.format.DateTimeParseException;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+import java.util.regex.Pattern;
+
+/**
+ * Reads one fact file, line by line, into raw facts and set declarations, collecting every
+ * problem with its line. Each non-blank line is one JSON object: a fact
+ * ({@code set, key, value}, optional {@code aliases, valid_from, valid_to, source}) or a set
+ * declaration ({@code set, options}). Stateless; thread-safe.
+ */
+final class FactFileReader {
+  /** Set names: lower-case ASCII letters, digits, {@code _} and {@code -}, at most 64. */
+  static final Pattern SET_NAME = Pattern.compile("[a-z0-9][a-z0-9_-]{0,63}");
+  static final int MAX_LINE_LENGTH = 65_536;
+  static final int MAX_ALIASES = 32;
+  /** Problems listed per file; more are counted in one last line. */
+  static final int MAX_PROBLEMS_SHOWN = 10;
+
+  private static final Set<String> FACT_FIELDS =
+      Set.of("set", "key", "value", "aliases", "valid_from", "valid_to", "source");
+  private static final String FACT_FIELD_LIST = "set, key, value, aliases, valid_from, valid_to, source";
+  private static final Set<String> OPTIONS = Set.of("fold_accents");
+
+  /** A fact as read, before its set is indexed. */
+  record RawFact(String set, String key, String value, List<String> aliases, LocalDate from, LocalDate to,
+      String source, String file, int line) {}
+
+  /** A set's options, as declared by a {@code {"set":..., "options":{...}}} line. */
+  record Declaration(String set, boolean foldAccents, String file, int line) {}
+
+  /** What one file held. */
+  record FileRead(String file, List<RawFact> facts, List<Declaration> declarations, Problems problems) {}
+
+  /** A bounded list of one file's problems. */
+  static final class Problems {
+    private final String file;
+    private final List<ReloadReport.Problem> shown = new ArrayList<>();
+    private int count;
+
+    Problems(String file) {
+      this.file = file;
+    }
+
+    void add(int line, String reason) {
+      count++;
+      if (shown.size() < MAX_PROBLEMS_SHOWN) {
+        shown.add(new ReloadReport.Problem(file, line, reason));
+      }
+    }
+
+    boolean isEmpty() {
+      return count == 0;
+    }
+
+    List<ReloadReport.Problem> list() {
+      List<ReloadReport.Problem> all = new ArrayList<>(shown);
+      if (count > shown.size()) {
+        all.add(new ReloadReport.Problem(file, 0, (count - shown.size()) + " more problems not shown"));
+      }
+      return all;
+    }
+  }
+
+  /** A line's problem, thrown inside the reader and caught per line. */
+  private static final class LineProblem extends Exception {
+    private static final long serialVersionUID = 1L;
+
+    LineProblem(String reason) {
+      super(reason, null, false, false);
+    }
+  }
+
+  private FactFileReader() {}
+
+  static FileRead read(FactSource.Input input) {
+    String file = input.name();
+    List<RawFact> facts = new ArrayList<>();
+    List<Declaration> declarations = new ArrayList<>();
+    Problems problems = new Problems(file);
+    int lineNumber = 0;
+    try (BufferedReader reader = input.open()) {
+      String line;
+      while ((line = reader.readLine()) != null) {
+        lineNumber++;
+        if (lineNumber == 1 && line.startsWith("\uFEFF")) {
+          line = line.substring(1); // a byte order mark some editors write
+        }
+        if (line.isBlank()) {
+          continue;
+        }
+        try {
+          readLine(line, file, lineNumber, facts, declarations);
+        } catch (LineProblem e) {
+          problems.add(lineNumber, e.getMessage());
+        }
+      }
+    } catch (CharacterCodingException e) {
+      problems.add(lineNumber + 1, "not valid UTF-8");
+    } catch (IOException e) {
+      problems.add(0, "cannot read: " + e.getMessage());
+    }
+    return new FileRead(file, facts, declarations, problems);
+  }
+
+  private static void readLine(String line, String file, int lineNumber, List<RawFact> facts,
+      List<Declaration> declarations) throws LineProblem {
+    if (line.length() > MAX_LINE_LENGTH) {
+      throw new LineProblem("line is longer than " + MAX_LINE_LENGTH + " characters");
+    }
+    Map<String, Object> object;
+    try {
+      object = JsonLine.parseObject(line);
+    } catch (JsonLine.Malformed e) {
+      throw new LineProblem("not a JSON object at column " + e.column() + ": " + e.getMessage());
+    }
+    String set = setName(object);
+    if (object.containsKey("options")) {
+      declarations.add(declaration(object, set, file, lineNumber));
+      return;
+    }
+    for (String member : object.keySet()) {
+      if (!FACT_FIELDS.contains(member)) {
+        throw new LineProblem("\"" + TextRules.echo(member) + "\" is not a fact field; the fields are " + FACT_FIELD_LIST);
+      }
+    }
+    String key = stored(object, "key", TextRules.MAX_KEY_LENGTH, true);
+    String value = stored(object, "value", TextRules.MAX_VALUE_LENGTH, true);
+    List<String> aliases = aliases(object);
+    LocalDate from = date(object, "valid_from");
+    LocalDate to = date(object, "valid_to");
+    if (from != null && to != null && !from.isBefore(to)) {
+      throw new LineProblem("valid_from " + from + " must be before valid_to " + to
+          + " (the interval is half-open: valid_to is the first day it no longer holds)");
+    }
+    String source = stored(object, "source", TextRules.MAX_SOURCE_LENGTH, false);
+    facts.add(new RawFact(set, key, value, aliases, from, to, source, file, lineNumber));
+  }
+
+  private static String setName(Map<String, Object> object) throws LineProblem {
+    Object set = object.get("set");
+    if (set == null) {
+      throw new LineProblem("\"set\" is missing");
+    }
+    if (!(set instanceof String s) || !SET_NAME.matcher(s).matches()) {
+      throw new LineProblem("\"set\" must be a name of lower-case letters, digits, '_' and '-' (at most 64,"
+          + " starting with a letter or digit) but was " + describe(set));
+    }
+    return s;
+  }
+
+  private static Declaration declaration(Map<String, Object> object, String set, String file, int line)
+      throws LineProblem {
+    if (object.size() != 2) {
+      throw new LineProblem("a set declaration holds only \"set\" and \"options\"");
+    }
+    if (!(object.get("options") instanceof Map<?, ?> options)) {
+      throw new LineProblem("\"options\" must be an object");
+    }
+    for (Object name : options.keySet()) {
+      if (!OPTIONS.contains(name)) {
+        throw new LineProblem("unknown set option \"" + TextRules.echo(name.toString()) + "\"; the options are fold_accents");
+      }
+    }
+    Object fold = options.get("fold_accents");
+    if (fold != null && !(fold instanceof Boolean)) {
+      throw new LineProblem("option fold_accents must be true or false but was " + describe(fold));
+    }
+    return new Declaration(set, Boolean.TRUE.equals(fold), file, line);
+  }
+
+  private static String stored(Map<String, Object> object, String field, int maxLength, boolean required)
+      throws LineProblem {
+    Object v = object.get(field);
+    if (v == null) {
+      if (required) {
+        throw new LineProblem("\"" + field + "\" is missing");
+      }
+      return null;
+    }
+    if (!(v instanceof String s)) {
+      throw new LineProblem("\"" + field + "\" must be a string but was " + describe(v));
+    }
+    Optional<String> problem = TextRules.storedTextProblem(field, s, maxLength);
+    if (problem.isPresent()) {
+      throw new LineProblem(problem.get());
+    }
+    return s;
+  }
+
+  private static List<String> aliases(Map<String, Object> object) throws LineProblem {
+    Object v = object.get("aliases");
+    if (v == null) {
+      return List.of();
+    }
+    if (!(v instanceof List<?> list)) {
+      throw new LineProblem("\"aliases\" must be an array of strings but was " + describe(v));
+    }
+    if (list.size() > MAX_ALIASES) {
+      throw new LineProblem("a fact may have at most " + MAX_ALIASES + " aliases but this one has " + list.size());
+    }
+    List<String> aliases = new ArrayList<>(list.size());
+    for (Object a : list) {
+      if (!(a instanceof String s)) {
+        throw new LineProblem("every alias must be a string but one was " + describe(a));
+      }
+      Optional<String> problem = TextRules.storedTextProblem("alias", s, TextRules.MAX_KEY_LENGTH);
+      if (problem.isPresent()) {
+        throw new LineProblem(problem.get());
+      }
+      aliases.add(s);
+    }
+    return List.copyOf(aliases);
+  }
+
+  private static LocalDate date(Map<String, Object> object, String field) throws LineProblem {
+    Object v = object.get(field);
+    if (v == null) {
+      return null;
+    }
+    if (v instanceof String s) {
+      try {
+        return LocalDate.parse(s, DateTimeFormatter.ISO_LOCAL_DATE);
+      } catch (DateTimeParseException e) {
+        // fall through to the message below
+      }
+    }
+    throw new LineProblem("\"" + field + "\" must be an ISO 8601 calendar date such as 2031-05-17 but was " + describe(v));
+  }
+
+  private static String describe(Object v) {
+    if (v instanceof String s) {
+      return "\"" + TextRules.echo(s) + "\"";
+    }
+    if (v instanceof Map) {
+      return "an object";
+    }
+    if (v instanceof List) {
+      return "an array";
+    }
+    return String.valueOf(v);
+  }
+}
