@@ -1,8 +1,12 @@
 package reckoner.facts;
 
-import java.io.BufferedReader;
 import java.io.IOException;
+import java.io.InputStream;
+import java.nio.ByteBuffer;
 import java.nio.charset.CharacterCodingException;
+import java.nio.charset.CharsetDecoder;
+import java.nio.charset.CodingErrorAction;
+import java.nio.charset.StandardCharsets;
 import java.time.LocalDate;
 import java.time.format.DateTimeFormatter;
 import java.time.format.DateTimeParseException;
@@ -22,7 +26,8 @@ import java.util.regex.Pattern;
 final class FactFileReader {
   /** Set names: lower-case ASCII letters, digits, {@code _} and {@code -}, at most 64. */
   static final Pattern SET_NAME = Pattern.compile("[a-z0-9][a-z0-9_-]{0,63}");
-  static final int MAX_LINE_LENGTH = 65_536;
+  /** Longest line, in bytes of UTF-8. */
+  static final int MAX_LINE_BYTES = 65_536;
   static final int MAX_ALIASES = 32;
   /** Problems listed per file; more are counted in one last line. */
   static final int MAX_PROBLEMS_SHOWN = 10;
@@ -88,11 +93,25 @@ final class FactFileReader {
     List<RawFact> facts = new ArrayList<>();
     List<Declaration> declarations = new ArrayList<>();
     Problems problems = new Problems(file);
-    int lineNumber = 0;
-    try (BufferedReader reader = input.open()) {
-      String line;
-      while ((line = reader.readLine()) != null) {
+    CharsetDecoder utf8 = StandardCharsets.UTF_8.newDecoder()
+        .onMalformedInput(CodingErrorAction.REPORT)
+        .onUnmappableCharacter(CodingErrorAction.REPORT);
+    try (InputStream in = input.open()) {
+      LineBytes bytes = new LineBytes(in);
+      int lineNumber = 0;
+      while (bytes.next()) {
         lineNumber++;
+        if (bytes.tooLong) {
+          problems.add(lineNumber, "line is longer than " + MAX_LINE_BYTES + " bytes");
+          continue;
+        }
+        String line;
+        try {
+          line = utf8.decode(ByteBuffer.wrap(bytes.buffer, 0, bytes.length)).toString();
+        } catch (CharacterCodingException e) {
+          problems.add(lineNumber, "not valid UTF-8");
+          continue;
+        }
         if (lineNumber == 1 && line.startsWith("\uFEFF")) {
           line = line.substring(1); // a byte order mark some editors write
         }
@@ -105,19 +124,75 @@ final class FactFileReader {
           problems.add(lineNumber, e.getMessage());
         }
       }
-    } catch (CharacterCodingException e) {
-      problems.add(lineNumber + 1, "not valid UTF-8");
     } catch (IOException e) {
       problems.add(0, "cannot read: " + e.getMessage());
     }
     return new FileRead(file, facts, declarations, problems);
   }
 
+  /** The bytes of one line at a time, split at LF with a CR before it dropped; buffers reused between lines. */
+  private static final class LineBytes {
+    private final InputStream in;
+    private final byte[] chunk = new byte[1 << 16];
+    private int chunkPos;
+    private int chunkEnd;
+    byte[] buffer = new byte[256];
+    int length;
+    boolean tooLong;
+
+    LineBytes(InputStream in) {
+      this.in = in;
+    }
+
+    /** Reads the next line; false at the end of the input. */
+    boolean next() throws IOException {
+      length = 0;
+      tooLong = false;
+      boolean any = false;
+      while (true) {
+        if (chunkPos == chunkEnd) {
+          chunkEnd = in.read(chunk, 0, chunk.length);
+          chunkPos = 0;
+          if (chunkEnd <= 0) {
+            chunkEnd = 0;
+            return any && trimCr();
+          }
+        }
+        any = true;
+        int start = chunkPos;
+        while (chunkPos < chunkEnd && chunk[chunkPos] != '\n') {
+          chunkPos++;
+        }
+        append(start, chunkPos);
+        if (chunkPos < chunkEnd) {
+          chunkPos++; // the LF
+          return trimCr();
+        }
+      }
+    }
+
+    private void append(int from, int to) {
+      int n = Math.min(to - from, MAX_LINE_BYTES - length);
+      if (n < to - from) {
+        tooLong = true;
+      }
+      if (length + n > buffer.length) {
+        buffer = java.util.Arrays.copyOf(buffer, Math.max(length + n, Math.min(buffer.length * 2, MAX_LINE_BYTES)));
+      }
+      System.arraycopy(chunk, from, buffer, length, n);
+      length += n;
+    }
+
+    private boolean trimCr() {
+      if (length > 0 && buffer[length - 1] == '\r') {
+        length--;
+      }
+      return true;
+    }
+  }
+
   private static void readLine(String line, String file, int lineNumber, List<RawFact> facts,
       List<Declaration> declarations) throws LineProblem {
-    if (line.length() > MAX_LINE_LENGTH) {
-      throw new LineProblem("line is longer than " + MAX_LINE_LENGTH + " characters");
-    }
     Map<String, Object> object;
     try {
       object = JsonLine.parseObject(line);

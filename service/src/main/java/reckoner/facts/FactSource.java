@@ -1,11 +1,7 @@
 package reckoner.facts;
 
-import java.io.BufferedReader;
 import java.io.IOException;
 import java.io.InputStream;
-import java.io.InputStreamReader;
-import java.nio.charset.CodingErrorAction;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.attribute.BasicFileAttributes;
@@ -31,11 +27,11 @@ public abstract class FactSource {
   /** The name of the demo's main set, the natural default set when the demo is served. */
   public static final String DEMO_DEFAULT_SET = "demo";
 
-  /** One file to read: its name for reports, and how to open it. */
+  /** One file to read: its name for reports, and how to open it (bytes; the reader decodes UTF-8 per line). */
   interface Input {
     String name();
 
-    BufferedReader open() throws IOException;
+    InputStream open() throws IOException;
   }
 
   private FactSource() {}
@@ -69,12 +65,6 @@ public abstract class FactSource {
    */
   abstract Object fingerprint();
 
-  static BufferedReader strictUtf8(InputStream in) {
-    return new BufferedReader(new InputStreamReader(in, StandardCharsets.UTF_8.newDecoder()
-        .onMalformedInput(CodingErrorAction.REPORT)
-        .onUnmappableCharacter(CodingErrorAction.REPORT)));
-  }
-
   private static final class Directory extends FactSource {
     private final Path dir;
 
@@ -93,8 +83,8 @@ public abstract class FactSource {
           }
 
           @Override
-          public BufferedReader open() throws IOException {
-            return strictUtf8(Files.newInputStream(file));
+          public InputStream open() throws IOException {
+            return Files.newInputStream(file);
           }
         });
       }
@@ -160,12 +150,12 @@ public abstract class FactSource {
           }
 
           @Override
-          public BufferedReader open() throws IOException {
+          public InputStream open() throws IOException {
             InputStream in = loader.getResourceAsStream(resource);
             if (in == null) {
               throw new IOException("no such classpath resource");
             }
-            return strictUtf8(in);
+            return in;
           }
         });
       }

@@ -294,6 +294,7 @@ final class JsonLine {
   }
 
   private Malformed error(String message) {
-    return new Malformed(pos + 1, message);
+    return new Malformed(pos + 1, pos >= text.length() && !message.startsWith("unexpected end") && !message.startsWith("unterminated")
+        ? message + " but the line ended" : message);
   }
 }
