@@ -88,8 +88,41 @@ final class FactFileReader {
 
   private FactFileReader() {}
 
+  /** Repeated strings of one file (set names, sources, dates) shared instead of kept once per line. */
+  private static final class Shared {
+    private static final int MAX_ENTRIES = 4096;
+    private final Map<String, String> strings = new java.util.HashMap<>();
+    private final Map<String, LocalDate> dates = new java.util.HashMap<>();
+
+    String string(String s) {
+      if (s == null) {
+        return null;
+      }
+      String shared = strings.get(s);
+      if (shared != null) {
+        return shared;
+      }
+      if (strings.size() < MAX_ENTRIES) {
+        strings.put(s, s);
+      }
+      return s;
+    }
+
+    LocalDate date(String s) throws DateTimeParseException {
+      LocalDate d = dates.get(s);
+      if (d == null) {
+        d = LocalDate.parse(s, DateTimeFormatter.ISO_LOCAL_DATE);
+        if (dates.size() < MAX_ENTRIES) {
+          dates.put(s, d);
+        }
+      }
+      return d;
+    }
+  }
+
   static FileRead read(FactSource.Input input) {
     String file = input.name();
+    Shared shared = new Shared();
     List<RawFact> facts = new ArrayList<>();
     List<Declaration> declarations = new ArrayList<>();
     Problems problems = new Problems(file);
@@ -119,7 +152,7 @@ final class FactFileReader {
           continue;
         }
         try {
-          readLine(line, file, lineNumber, facts, declarations);
+          readLine(line, file, lineNumber, facts, declarations, shared);
         } catch (LineProblem e) {
           problems.add(lineNumber, e.getMessage());
         }
@@ -192,14 +225,14 @@ final class FactFileReader {
   }
 
   private static void readLine(String line, String file, int lineNumber, List<RawFact> facts,
-      List<Declaration> declarations) throws LineProblem {
+      List<Declaration> declarations, Shared shared) throws LineProblem {
     Map<String, Object> object;
     try {
       object = JsonLine.parseObject(line);
     } catch (JsonLine.Malformed e) {
       throw new LineProblem("not a JSON object at column " + e.column() + ": " + e.getMessage());
     }
-    String set = setName(object);
+    String set = shared.string(setName(object));
     if (object.containsKey("options")) {
       declarations.add(declaration(object, set, file, lineNumber));
       return;
@@ -212,13 +245,13 @@ final class FactFileReader {
     String key = stored(object, "key", TextRules.MAX_KEY_LENGTH, true);
     String value = stored(object, "value", TextRules.MAX_VALUE_LENGTH, true);
     List<String> aliases = aliases(object);
-    LocalDate from = date(object, "valid_from");
-    LocalDate to = date(object, "valid_to");
+    LocalDate from = date(object, "valid_from", shared);
+    LocalDate to = date(object, "valid_to", shared);
     if (from != null && to != null && !from.isBefore(to)) {
       throw new LineProblem("valid_from " + from + " must be before valid_to " + to
           + " (the interval is half-open: valid_to is the first day it no longer holds)");
     }
-    String source = stored(object, "source", TextRules.MAX_SOURCE_LENGTH, false);
+    String source = shared.string(stored(object, "source", TextRules.MAX_SOURCE_LENGTH, false));
     facts.add(new RawFact(set, key, value, aliases, from, to, source, file, lineNumber));
   }
 
@@ -298,14 +331,14 @@ final class FactFileReader {
     return List.copyOf(aliases);
   }
 
-  private static LocalDate date(Map<String, Object> object, String field) throws LineProblem {
+  private static LocalDate date(Map<String, Object> object, String field, Shared shared) throws LineProblem {
     Object v = object.get(field);
     if (v == null) {
       return null;
     }
     if (v instanceof String s) {
       try {
-        return LocalDate.parse(s, DateTimeFormatter.ISO_LOCAL_DATE);
+        return shared.date(s);
       } catch (DateTimeParseException e) {
         // fall through to the message below
       }

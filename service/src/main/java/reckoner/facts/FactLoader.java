@@ -53,7 +53,7 @@ final class FactLoader {
     Map<String, FactSet> sets = new TreeMap<>();
     bySet.forEach((name, facts) -> {
       FactFileReader.Declaration d = declared.get(name);
-      sets.put(name, new FactSetBuilder(name, d != null && d.foldAccents(), sink).build(facts));
+      sets.put(name, new FactSetBuilder(name, d != null && d.foldAccents(), sink, facts.size()).build(facts));
     });
 
     List<ReloadReport.FileResult> files = new ArrayList<>(unreadable);

@@ -5,6 +5,7 @@ import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.time.LocalDate;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.HashMap;
 import java.util.HexFormat;
 import java.util.List;
@@ -25,27 +26,75 @@ final class FactSetBuilder {
   private final boolean foldAccents;
   private final ProblemSink problems;
 
-  private final Map<String, Integer> owners = new HashMap<>(); // normalised name -> key index
-  private final List<String> keyNames = new ArrayList<>();      // key index -> its normalised key
-  private final List<EntryBuilder> entries = new ArrayList<>();
+  // Normalised name (key or alias) -> its key's builder; the same map later holds the built entries.
+  private final Map<String, Object> index;
+  private int keys;
   private final List<String> names = new ArrayList<>();
   private final List<String> shown = new ArrayList<>();
-  private final List<Integer> nameOwners = new ArrayList<>();
+  private int[] nameOwners = new int[16];
 
+  /** A key's facts so far; most keys have one, held without a list. */
   private static final class EntryBuilder {
+    final int number;
+    final String key;
     final String shown;
-    final List<Fact> facts = new ArrayList<>(1);
-    final List<FactFileReader.RawFact> origins = new ArrayList<>(1);
+    private Fact first;
+    private FactFileReader.RawFact firstOrigin;
+    private List<Fact> more;
+    private List<FactFileReader.RawFact> moreOrigins;
 
-    EntryBuilder(String shown) {
+    EntryBuilder(int number, String key, String shown) {
+      this.number = number;
+      this.key = key;
       this.shown = shown;
+    }
+
+    int size() {
+      return first == null ? 0 : 1 + (more == null ? 0 : more.size());
+    }
+
+    Fact fact(int i) {
+      return i == 0 ? first : more.get(i - 1);
+    }
+
+    FactFileReader.RawFact origin(int i) {
+      return i == 0 ? firstOrigin : moreOrigins.get(i - 1);
+    }
+
+    void add(Fact fact, FactFileReader.RawFact origin) {
+      if (first == null) {
+        first = fact;
+        firstOrigin = origin;
+        return;
+      }
+      if (more == null) {
+        more = new ArrayList<>(2);
+        moreOrigins = new ArrayList<>(2);
+      }
+      more.add(fact);
+      moreOrigins.add(origin);
+    }
+
+    private FactSet.Entry built;
+
+    /** The entry, made once and shared by every name of the key. */
+    FactSet.Entry built() {
+      if (built == null) {
+        List<Fact> all = new ArrayList<>(size());
+        for (int i = 0; i < size(); i++) {
+          all.add(fact(i));
+        }
+        built = new FactSet.Entry(shown, all);
+      }
+      return built;
     }
   }
 
-  FactSetBuilder(String name, boolean foldAccents, ProblemSink problems) {
+  FactSetBuilder(String name, boolean foldAccents, ProblemSink problems, int expectedFacts) {
     this.name = name;
     this.foldAccents = foldAccents;
     this.problems = problems;
+    this.index = new HashMap<>(Math.max(16, (int) Math.min(1 << 30, expectedFacts * 4L / 3 + 1)));
   }
 
   /** Indexes {@code facts}; returns the set, whose use the caller skips if any problem was reported. */
@@ -58,14 +107,12 @@ final class FactSetBuilder {
       digestFact(digest, f);
       add(f);
     }
-    Map<String, FactSet.Entry> byName = new HashMap<>(Math.max(16, owners.size() * 4 / 3 + 1));
-    List<FactSet.Entry> built = new ArrayList<>(entries.size());
-    for (EntryBuilder e : entries) {
-      built.add(new FactSet.Entry(e.shown, e.facts));
-    }
-    owners.forEach((n, owner) -> byName.put(n, built.get(owner)));
+    index.replaceAll((n, e) -> ((EntryBuilder) e).built()); // names of one key share its entry
+    @SuppressWarnings("unchecked") // every value is an Entry now
+    Map<String, FactSet.Entry> byName = (Map<String, FactSet.Entry>) (Map<String, ?>) index;
     String version = "sha256:" + HexFormat.of().formatHex(digest.digest(), 0, 8);
-    return new FactSet(name, foldAccents, version, facts.size(), byName, new NearestKeys(names, shown, nameOwners));
+    return new FactSet(name, foldAccents, version, facts.size(), byName,
+        new NearestKeys(names, shown, Arrays.copyOf(nameOwners, names.size())));
   }
 
   private void add(FactFileReader.RawFact f) {
@@ -74,66 +121,64 @@ final class FactSetBuilder {
       problems.add(f.file(), f.line(), "key \"" + TextRules.echo(f.key()) + "\" is empty after normalisation");
       return;
     }
-    Integer owner = owners.get(k);
-    if (owner == null) {
-      owner = newKey(k, f.key());
-    } else if (!keyNames.get(owner).equals(k)) {
+    EntryBuilder entry = (EntryBuilder) index.get(k);
+    if (entry == null) {
+      entry = newKey(k, f.key());
+    } else if (!entry.key.equals(k)) {
       problems.add(f.file(), f.line(), "key \"" + TextRules.echo(f.key()) + "\" is already an alias of key \""
-          + entries.get(owner).shown + "\" (" + origin(entries.get(owner)) + ")");
+          + entry.shown + "\" (" + origin(entry) + ")");
       return;
     }
-    EntryBuilder entry = entries.get(owner);
     for (String alias : f.aliases()) {
-      addAlias(f, alias, owner);
+      addAlias(f, alias, entry);
     }
     Fact fact = new Fact(f.value(), f.from(), f.to());
-    for (int i = 0; i < entry.facts.size(); i++) {
-      if (entry.facts.get(i).equals(fact)) {
-        FactFileReader.RawFact first = entry.origins.get(i);
+    for (int i = 0; i < entry.size(); i++) {
+      if (entry.fact(i).equals(fact)) {
+        FactFileReader.RawFact first = entry.origin(i);
         problems.add(f.file(), f.line(), "repeats the fact at " + first.file() + ":" + first.line());
         return;
       }
     }
-    entry.facts.add(fact);
-    entry.origins.add(f);
+    entry.add(fact, f);
   }
 
-  private int newKey(String k, String written) {
-    int index = entries.size();
-    entries.add(new EntryBuilder(written));
-    keyNames.add(k);
-    owners.put(k, index);
-    addName(k, written, index);
-    return index;
+  private EntryBuilder newKey(String k, String written) {
+    EntryBuilder entry = new EntryBuilder(keys++, k, written);
+    index.put(k, entry);
+    addName(k, written, entry);
+    return entry;
   }
 
-  private void addAlias(FactFileReader.RawFact f, String alias, int owner) {
+  private void addAlias(FactFileReader.RawFact f, String alias, EntryBuilder owner) {
     String n = KeyNormalizer.normalize(alias, foldAccents);
     if (n.isEmpty()) {
       problems.add(f.file(), f.line(), "alias \"" + TextRules.echo(alias) + "\" is empty after normalisation");
       return;
     }
-    Integer other = owners.putIfAbsent(n, owner);
+    EntryBuilder other = (EntryBuilder) index.putIfAbsent(n, owner);
     if (other == null) {
       addName(n, alias, owner);
     } else if (other != owner) {
-      EntryBuilder taken = entries.get(other);
       problems.add(f.file(), f.line(), "alias \"" + TextRules.echo(alias) + "\" is already a name of key \""
-          + taken.shown + "\" (" + origin(taken) + ")");
+          + other.shown + "\" (" + origin(other) + ")");
     }
   }
 
-  private void addName(String normalized, String written, int owner) {
+  private void addName(String normalized, String written, EntryBuilder owner) {
+    if (names.size() == nameOwners.length) {
+      nameOwners = Arrays.copyOf(nameOwners, nameOwners.length * 2);
+    }
+    nameOwners[names.size()] = owner.number;
     names.add(normalized);
     shown.add(written);
-    nameOwners.add(owner);
   }
 
   private static String origin(EntryBuilder e) {
-    if (e.origins.isEmpty()) {
+    if (e.size() == 0) {
       return "an earlier line";
     }
-    FactFileReader.RawFact first = e.origins.get(0);
+    FactFileReader.RawFact first = e.origin(0);
     return first.file() + ":" + first.line();
   }
 
@@ -141,7 +186,7 @@ final class FactSetBuilder {
   private static void digestFact(MessageDigest digest, FactFileReader.RawFact f) {
     put(digest, f.key());
     put(digest, f.value());
-    put(digest, Integer.toString(f.aliases().size()));
+    put(digest, Integer.toString(f.aliases().size())); // then that many alias fields
     for (String a : f.aliases()) {
       put(digest, a);
     }
@@ -154,17 +199,20 @@ final class FactSetBuilder {
     return d == null ? null : d.toString();
   }
 
-  /** {@code LENGTH:BYTES;} for a string, {@code ~;} for an absent field. */
+  /**
+   * A field: its UTF-8 length as 4 bytes big-endian, then its bytes; an absent field is the length
+   * FF FF FF FF with no bytes.
+   */
   private static void put(MessageDigest digest, String s) {
-    if (s == null) {
-      digest.update((byte) '~');
-    } else {
-      byte[] bytes = s.getBytes(StandardCharsets.UTF_8);
-      digest.update(Integer.toString(bytes.length).getBytes(StandardCharsets.US_ASCII));
-      digest.update((byte) ':');
+    byte[] bytes = s == null ? null : s.getBytes(StandardCharsets.UTF_8);
+    int length = bytes == null ? -1 : bytes.length;
+    digest.update((byte) (length >>> 24));
+    digest.update((byte) (length >>> 16));
+    digest.update((byte) (length >>> 8));
+    digest.update((byte) length);
+    if (bytes != null) {
       digest.update(bytes);
     }
-    digest.update((byte) ';');
   }
 
   private static MessageDigest sha256() {

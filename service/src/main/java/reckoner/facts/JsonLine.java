@@ -2,7 +2,6 @@ package reckoner.facts;
 
 import java.math.BigDecimal;
 import java.util.ArrayList;
-import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -104,7 +103,7 @@ final class JsonLine {
         throw error("expected a member name in double quotes");
       }
       int at = pos;
-      String name = string();
+      String name = memberName();
       skipSpace();
       expect(':');
       Object value = value(depth);
@@ -117,7 +116,7 @@ final class JsonLine {
         pos++;
       } else if (peek() == '}') {
         pos++;
-        return Collections.unmodifiableMap(members);
+        return members;
       } else {
         throw error("expected ',' or '}'");
       }
@@ -142,11 +141,26 @@ final class JsonLine {
         pos++;
       } else if (peek() == ']') {
         pos++;
-        return Collections.unmodifiableList(items);
+        return items;
       } else {
         throw error("expected ',' or ']'");
       }
     }
+  }
+
+  /** The names fact files use on every line, shared instead of copied per line. */
+  private static final String[] KNOWN_NAMES = {
+      "set", "key", "value", "aliases", "valid_from", "valid_to", "source", "options", "fold_accents"};
+
+  private String memberName() throws Malformed {
+    for (String known : KNOWN_NAMES) {
+      int end = pos + 1 + known.length();
+      if (end < text.length() && text.charAt(end) == '"' && text.startsWith(known, pos + 1)) {
+        pos = end + 1;
+        return known;
+      }
+    }
+    return string();
   }
 
   private String string() throws Malformed {

@@ -39,7 +39,7 @@ final class TextRules {
     if (length > maxLength) {
       return Optional.of(what + " is " + length + " characters long; at most " + maxLength + " are allowed");
     }
-    if (!ResultText.clean(text, maxLength).equals(text)) {
+    if (!isCleanLine(text, maxLength)) {
       return Optional.of(what + " must be one line without control or format characters, with single spaces"
           + " and no space at either end");
     }
@@ -52,6 +52,22 @@ final class TextRules {
       return Optional.of(what + " must not begin or end with '<', '>' or '='");
     }
     return Optional.empty();
+  }
+
+  /** Whether {@link ResultText#clean} would leave {@code text} as it is (decided without copying for ASCII). */
+  static boolean isCleanLine(String text, int maxLength) {
+    boolean previousSpace = true; // a space at the start is not clean
+    for (int i = 0; i < text.length(); i++) {
+      char c = text.charAt(i);
+      if (c > 0x7E) {
+        return ResultText.clean(text, maxLength).equals(text); // beyond ASCII: ask the rule itself
+      }
+      if (c < 0x20 || (c == ' ' && previousSpace)) {
+        return false;
+      }
+      previousSpace = c == ' ';
+    }
+    return !previousSpace;
   }
 
   /**

@@ -19,11 +19,11 @@ import reckoner.tool.ToolException;
 final class DemoFactsTest {
   /**
    * The demo's data versions. Checked once against an independent re-implementation of the
-   * documented digest (SHA-256 over length-prefixed fields, see FactSetBuilder); change them only
-   * together with the demo files.
+   * documented digest (SHA-256 over fields each prefixed by its 4-byte UTF-8 length, see
+   * FactSetBuilder) written in another language; change them only together with the demo files.
    */
-  static final String DEMO_VERSION = "sha256:725327e26adf58e2";
-  static final String WORDS_VERSION = "sha256:33f6b99acad84005";
+  static final String DEMO_VERSION = "sha256:5bb6011af48aa010";
+  static final String WORDS_VERSION = "sha256:f11aa2970caece6e";
 
   private static final FactStore STORE = TestFacts.demo();
   private static final FactsTool TOOL = new FactsTool(STORE);

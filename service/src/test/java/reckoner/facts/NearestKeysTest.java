@@ -14,12 +14,12 @@ import org.junit.jupiter.api.Test;
 
 /** Nearest-key suggestions: bounded, ordered, one per key, and the filters never drop a true match. */
 final class NearestKeysTest {
+  private static int[] ownEach(int n) {
+    return java.util.stream.IntStream.range(0, n).toArray();
+  }
+
   private static NearestKeys of(String... names) {
-    List<Integer> owners = new ArrayList<>();
-    for (int i = 0; i < names.length; i++) {
-      owners.add(i);
-    }
-    return new NearestKeys(List.of(names), List.of(names), owners);
+    return new NearestKeys(List.of(names), List.of(names), ownEach(names.length));
   }
 
   @Test
@@ -38,8 +38,54 @@ final class NearestKeysTest {
   @Test
   void near_suggestsOneNamePerKey() {
     NearestKeys keys = new NearestKeys(List.of("harbour master", "harbour masters", "pier"),
-        List.of("Harbour Master", "harbour masters", "Pier"), List.of(0, 0, 1));
+        List.of("Harbour Master", "harbour masters", "Pier"), new int[] {0, 0, 1});
     assertEquals(List.of("Harbour Master"), keys.near("harbour mastr"));
+  }
+
+  @Test
+  void near_largeSet_findsSingleSlipsAnywhereThroughTheSortedWindows() {
+    List<String> names = new ArrayList<>();
+    for (int i = 0; i < 5000; i++) {
+      names.add(String.format(java.util.Locale.ROOT, "mooring permit mp-%07d", i * 7919 % 1_000_000));
+    }
+    NearestKeys windowed = new NearestKeys(names, names, ownEach(names.size()), 100); // force the windowed search
+    String target = names.get(1234);
+    List<String> slips = List.of(
+        "m" + target.substring(2),                          // a deletion at the start
+        target.substring(0, 10) + "x" + target.substring(11), // a substitution in the middle
+        target + "9",                                       // an insertion at the end
+        target.replace("mp-", "mp-9"));                     // an insertion among the digits
+    for (String slip : slips) {
+      assertEquals(target, windowed.near(slip).get(0), slip);
+    }
+  }
+
+  @Test
+  void near_largeSet_agreesWithTheExactScanOnSingleSlips() {
+    List<String> names = new ArrayList<>();
+    java.util.SplittableRandom random = new java.util.SplittableRandom(5);
+    for (int i = 0; i < 3000; i++) {
+      names.add("harbour " + Long.toString(random.nextLong(1L << 40), 36));
+    }
+    NearestKeys exact = new NearestKeys(names, names, ownEach(names.size()), Integer.MAX_VALUE);
+    NearestKeys windowed = new NearestKeys(names, names, ownEach(names.size()), 100);
+    for (int i = 0; i < 300; i++) {
+      String name = names.get(random.nextInt(names.size()));
+      int at = random.nextInt(name.length());
+      String slip = name.substring(0, at) + (char) ('a' + random.nextInt(26)) + name.substring(at + 1);
+      assertEquals(exact.near(slip).get(0), windowed.near(slip).get(0), slip);
+    }
+  }
+
+  @Property(tries = 300)
+  void compareReversed_isTheOrderOfReversedStrings(@ForAll @StringLength(max = 6) String a, @ForAll @StringLength(max = 6) String b) {
+    int expected = Integer.signum(NearestKeys.reverseUnits(a).compareTo(NearestKeys.reverseUnits(b)));
+    assertEquals(expected, Integer.signum(NearestKeys.compareReversed(a, b)));
+  }
+
+  @Test
+  void reverseUnits_reversesSurrogatePairsUnitByUnit() {
+    assertEquals("\uDE00\uD83Dba", NearestKeys.reverseUnits("ab\uD83D\uDE00"));
   }
 
   @Test
@@ -52,10 +98,6 @@ final class NearestKeysTest {
   void near_findsEveryNameWithinTheThreshold(@ForAll @Size(min = 1, max = 30) List<@AlphaChars @StringLength(min = 1, max = 12) String> names,
       @ForAll @AlphaChars @StringLength(min = 1, max = 12) String key) {
     List<String> distinct = names.stream().distinct().toList();
-    List<Integer> owners = new ArrayList<>();
-    for (int i = 0; i < distinct.size(); i++) {
-      owners.add(i);
-    }
     int threshold = NearestKeys.thresholdFor(key);
     LevenshteinDistance plain = LevenshteinDistance.getDefaultInstance();
     List<String> expected = distinct.stream()
@@ -66,6 +108,6 @@ final class NearestKeysTest {
         })
         .limit(NearestKeys.MAX_SUGGESTIONS)
         .toList();
-    assertEquals(expected, new NearestKeys(distinct, distinct, owners).near(key));
+    assertEquals(expected, new NearestKeys(distinct, distinct, ownEach(distinct.size())).near(key));
   }
 }
