@@ -14,7 +14,9 @@ jar="$root/service/target/reckoner.jar"
 work="$(mktemp -d)"
 trap 'rm -rf "$work"' EXIT
 
+echo "machine: $(nproc) cores, load average before the run:$(uptime | sed 's/.*load average://')"
 java -Xmx"$heap" -cp "$jar" "$here/FactsBenchmark.java" generate "$work/facts/bench.jsonl" "$facts"
 # A fixed heap (-Xms = -Xmx), as a service is run; G1, the JVM's default collector on this machine size.
 java -Xms"$heap" -Xmx"$heap" -XX:+UseG1GC -Dorg.slf4j.simpleLogger.defaultLogLevel=warn \
   -cp "$jar" "$here/FactsBenchmark.java" measure "$work/facts" "$facts"
+echo "load average after the run:$(uptime | sed 's/.*load average://')"

@@ -160,6 +160,10 @@ public final class FactsTool implements Tool {
    */
   static LocalDate parseAsOf(String text) throws ToolException {
     try {
+      if (isPlainDate(text)) { // the common YYYY-MM-DD, without the formatter's cost; of() checks the day
+        return LocalDate.of(Integer.parseInt(text, 0, 4, 10), Integer.parseInt(text, 5, 7, 10),
+            Integer.parseInt(text, 8, 10, 10));
+      }
       return LocalDate.parse(text, DateTimeFormatter.ISO_LOCAL_DATE);
     } catch (DateTimeException e) {
       // not a bare date; try a date-time below
@@ -170,6 +174,18 @@ public final class FactsTool implements Tool {
       throw invalid("as_of must be an ISO 8601 date such as 2031-05-17 or a date-time such as 2031-05-17T09:30:00Z"
           + " but was '" + TextRules.echo(text) + "'");
     }
+  }
+
+  private static boolean isPlainDate(String s) {
+    if (s.length() != 10 || s.charAt(4) != '-' || s.charAt(7) != '-') {
+      return false;
+    }
+    for (int i = 0; i < 10; i++) {
+      if (i != 4 && i != 7 && (s.charAt(i) < '0' || s.charAt(i) > '9')) {
+        return false;
+      }
+    }
+    return true;
   }
 
   private static ToolException unknownSet(String name, Snapshot snapshot) {

@@ -89,9 +89,17 @@ final class FactsToolTest {
       "2031-05-17T09:30:00.123+02:00, 2031-05-17",
       "2031-05-17T00:15:00+14:00[Pacific/Kiritimati], 2031-05-17",
       "2031-05-17T23:59:59, 2031-05-17",
-      "2032-02-29, 2032-02-29"})
+      "2032-02-29, 2032-02-29",
+      "0000-01-01, 0000-01-01",
+      "+10000-01-01, +10000-01-01"})
   void parseAsOf_isoForms_giveTheWrittenDate(String asOf, String date) throws ToolException {
     assertEquals(date, FactsTool.parseAsOf(asOf).toString());
+  }
+
+  @ParameterizedTest
+  @CsvSource({"2031-02-29", "2031-00-10", "2031-04-31", "2031-4-01", "2031-04-1", "２０３１-04-01", "+2031-04-01"})
+  void parseAsOf_notAnIsoCalendarDate_isInvalid(String asOf) {
+    assertEquals(ErrorCode.INVALID_ARGUMENT, assertThrows(ToolException.class, () -> FactsTool.parseAsOf(asOf)).error().code());
   }
 
   @Test
