@@ -16,6 +16,7 @@ import reckoner.tool.Answer;
 import reckoner.tool.Arguments;
 import reckoner.tool.CallContext;
 import reckoner.tool.ErrorCode;
+import reckoner.tool.ResultText;
 import reckoner.tool.Tool;
 import reckoner.tool.ToolError;
 import reckoner.tool.ToolException;
@@ -96,8 +97,10 @@ public final class FactsTool implements Tool {
     }
     Instant now = context.clock().instant(); // read once
     LocalDate today = LocalDate.ofInstant(now, ZoneOffset.UTC);
-    String text = valuesOn(entry, today, setName, " (server clock; pass as_of for a fixed date)")
-        + " (as of " + today + ", server clock)";
+    String values = valuesOn(entry, today, setName, " (server clock; pass as_of for a fixed date)");
+    String note = " (as of " + today + ", server clock)";
+    // the note must survive the answer's length bound, so the values give way to it
+    String text = ResultText.clean(values, ResultText.DEFAULT_MAX_LENGTH - note.length()) + note;
     return Answer.fromClock(text, now).withDataVersion(set.version());
   }
 

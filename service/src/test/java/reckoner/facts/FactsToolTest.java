@@ -23,6 +23,7 @@ import reckoner.tool.Answer;
 import reckoner.tool.Arguments;
 import reckoner.tool.CallContext;
 import reckoner.tool.ErrorCode;
+import reckoner.tool.ResultText;
 import reckoner.tool.ToolError;
 import reckoner.tool.ToolException;
 
@@ -46,7 +47,9 @@ final class FactsToolTest {
         "{\"set\":\"port\",\"key\":\"tide gauge\",\"value\":\"old gauge\",\"valid_to\":\"2022-01-01\"}",
         "{\"set\":\"port\",\"key\":\"harbour fee\",\"value\":\"base fee\"}",
         "{\"set\":\"port\",\"key\":\"harbour fee\",\"value\":\"winter surcharge\",\"valid_from\":\"2030-10-01\",\"valid_to\":\"2031-04-01\"}",
-        "{\"set\":\"port\",\"key\":\"Café Quay\",\"value\":\"north side\"}");
+        "{\"set\":\"port\",\"key\":\"Café Quay\",\"value\":\"north side\"}",
+        "{\"set\":\"port\",\"key\":\"notice\",\"value\":\"" + "n".repeat(150) + "\",\"valid_from\":\"2030-01-01\"}",
+        "{\"set\":\"port\",\"key\":\"notice\",\"value\":\"" + "m".repeat(150) + "\",\"valid_from\":\"2030-01-01\"}");
     TestFacts.write(dir, "words.jsonl",
         "{\"set\":\"words\",\"options\":{\"fold_accents\":true}}",
         "{\"set\":\"words\",\"key\":\"Café Quay\",\"value\":\"north side\"}");
@@ -179,6 +182,14 @@ final class FactsToolTest {
     assertFalse(a.cacheable());
     assertEquals(Optional.of(Instant.parse("2031-05-17T09:30:00Z")), a.clockReadAt());
     assertTrue(a.dataVersion().isPresent());
+  }
+
+  @Test
+  void invoke_longValuesOnTheClock_keepTheServerClockNoteWithinTheBound() throws ToolException {
+    String text = ask(Map.of("key", "notice")).text();
+    assertEquals(ResultText.DEFAULT_MAX_LENGTH, text.codePointCount(0, text.length()));
+    assertTrue(text.endsWith("m… (as of 2031-05-17, server clock)"), text);
+    assertTrue(text.startsWith("n".repeat(150) + "; m"), text);
   }
 
   @Test
