@@ -22,6 +22,7 @@ public final class FactsWatcher implements AutoCloseable {
   private final Duration interval;
   private Object pending;  // a fingerprint unlike the last reload's, waiting to hold still
   private ScheduledExecutorService executor;
+  private volatile Thread thread; // the polling thread, joined by close()
 
   private FactsWatcher(FactStore store, Duration interval) {
     this.store = store;
@@ -43,6 +44,7 @@ public final class FactsWatcher implements AutoCloseable {
       executor = Executors.newSingleThreadScheduledExecutor(r -> {
         Thread t = new Thread(r, "facts-watcher");
         t.setDaemon(true);
+        thread = t; // called under this lock: the executor makes its one thread on first use below
         return t;
       });
       long millis = Math.max(1, interval.toMillis());
@@ -69,13 +71,16 @@ public final class FactsWatcher implements AutoCloseable {
     return store.reload();
   }
 
-  /** Stops polling and waits for a reload in progress to finish. */
+  /** Stops polling; when it returns, a reload in progress has finished and the thread has ended. */
   @Override
   public void close() {
     ScheduledExecutorService e;
+    Thread t;
     synchronized (this) {
       e = executor;
+      t = thread;
       executor = null;
+      thread = null;
     }
     if (e == null) {
       return;
@@ -84,6 +89,9 @@ public final class FactsWatcher implements AutoCloseable {
     try {
       if (!e.awaitTermination(30, TimeUnit.SECONDS)) {
         LOG.warn("the facts watcher did not stop within 30 s");
+      }
+      if (t != null) {
+        t.join(TimeUnit.SECONDS.toMillis(30));
       }
     } catch (InterruptedException ie) {
       Thread.currentThread().interrupt();
