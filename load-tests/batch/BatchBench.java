@@ -220,7 +220,7 @@ public final class BatchBench {
     static Object create() {
       tools.jackson.databind.json.JsonMapper json = reckoner.spec.Json.newMapper();
       reckoner.spec.ToolCatalog catalog = reckoner.spec.ToolCatalog.of(
-          reckoner.tool.ToolRegistry.of(reckoner.Tools.standard()), new reckoner.spec.SpecLoader(json));
+          reckoner.tool.ToolRegistry.of(reckoner.Tools.demo()), new reckoner.spec.SpecLoader(json));
       return new Object[] {json, new reckoner.call.Invoker(catalog, Clock.systemUTC(), reckoner.call.AnswerCache.ofMaximumSize(100_000))};
     }
 

@@ -1,10 +1,17 @@
 package reckoner;
 
+import java.nio.file.Files;
+import java.nio.file.Path;
 import java.time.Clock;
+import java.util.ArrayList;
+import java.util.List;
 import reckoner.call.AnswerCache;
 import reckoner.call.Invoker;
 import reckoner.config.ConfigException;
 import reckoner.config.ServiceConfig;
+import reckoner.facts.FactLoadException;
+import reckoner.facts.FactSource;
+import reckoner.facts.FactStore;
 import reckoner.spec.SpecLoader;
 import reckoner.spec.ToolCatalog;
 import reckoner.splice.Markup;
@@ -13,11 +20,12 @@ import tools.jackson.databind.json.JsonMapper;
 
 /**
  * The call engine that the HTTP service and the offline command line share: the served tools with
- * their specs, the answer cache, the invoker and the configured markup. Wiring only.
+ * their specs, the fact store, the answer cache, the invoker and the configured markup. Wiring only.
  */
-record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup markup) {
+record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup markup, FactStore facts) {
   static Engine build(ServiceConfig config, Clock clock, JsonMapper json) {
-    ToolCatalog catalog = ToolCatalog.of(ToolRegistry.of(Tools.standard()), new SpecLoader(json));
+    FactStore facts = openFacts(config);
+    ToolCatalog catalog = ToolCatalog.of(ToolRegistry.of(Tools.standard(facts)), new SpecLoader(json));
     AnswerCache cache = AnswerCache.ofMaximumSize(config.cacheSize());
     Markup markup;
     try {
@@ -25,7 +33,38 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
     } catch (IllegalArgumentException e) {
       throw new ConfigException("markup-open, markup-separator, markup-close: " + e.getMessage());
     }
-    return new Engine(catalog, cache, new Invoker(catalog, clock, cache), markup);
+    return new Engine(catalog, cache, new Invoker(catalog, clock, cache), markup, facts);
+  }
+
+  /**
+   * The fact sets: the demo (unless turned off), {@code <data dir>/facts} (created if missing), and every
+   * {@code facts-dirs} entry (which must exist). A bad file stops the start, naming file and line.
+   */
+  static FactStore openFacts(ServiceConfig config) {
+    List<FactSource> sources = new ArrayList<>();
+    if (config.factsDemo()) {
+      sources.add(FactSource.demo());
+    }
+    Path own = config.dataDir().resolve("facts");
+    try {
+      Files.createDirectories(own); // always a source, so files dropped in later load on reload
+    } catch (java.io.IOException e) {
+      throw new ConfigException("data-dir: cannot create " + own + ": " + e.getMessage());
+    }
+    sources.add(FactSource.directory(own));
+    for (Path dir : config.factsDirs()) {
+      if (!Files.isDirectory(dir)) {
+        throw new ConfigException("facts-dirs: no such directory: " + dir);
+      }
+      sources.add(FactSource.directory(dir));
+    }
+    try {
+      return FactStore.open(sources, config.factsDefaultSet()); // the store logs each load itself
+    } catch (FactLoadException e) {
+      throw new ConfigException("fact files could not be loaded: " + e.getMessage());
+    } catch (IllegalArgumentException e) {
+      throw new ConfigException("facts-default-set: " + e.getMessage());
+    }
   }
 
   /** Threads for parallel calls: the configured count, or one per core. */

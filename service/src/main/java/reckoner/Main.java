@@ -6,6 +6,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Clock;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
 import java.util.concurrent.CountDownLatch;
@@ -56,6 +57,15 @@ public final class Main implements Runnable {
     @Option(names = "--markup-close", description = "Splice markup: the string that closes a call (default >>).")
     String markupClose;
 
+    @Option(names = "--facts-dir", description = "A directory of fact files (*.jsonl) beside <data dir>/facts; repeatable.")
+    List<Path> factsDirs;
+
+    @Option(names = "--facts-demo", negatable = true, description = "Serve the shipped demo fact sets (default true).")
+    Boolean factsDemo;
+
+    @Option(names = "--facts-default-set", description = "The fact set read when a call names none (default demo).")
+    String factsDefaultSet;
+
     @Option(names = "--config", description = "A properties file of settings (same names as the flags, without --).")
     Path configFile;
 
@@ -74,6 +84,11 @@ public final class Main implements Runnable {
       put("markup-open", markupOpen);
       put("markup-separator", markupSeparator);
       put("markup-close", markupClose);
+      if (factsDirs != null) {
+        put("facts-dirs", String.join(",", factsDirs.stream().map(Path::toString).toList()));
+      }
+      put("facts-demo", factsDemo);
+      put("facts-default-set", factsDefaultSet);
       Path file = configFile != null ? configFile
           : System.getenv("RECKONER_CONFIG") != null ? Path.of(System.getenv("RECKONER_CONFIG")) : null;
       return ServiceConfig.from(ServiceConfig.merge(file, System.getenv(), flags));

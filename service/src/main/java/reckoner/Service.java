@@ -8,6 +8,7 @@ import io.micrometer.core.instrument.binder.system.ProcessorMetrics;
 import io.micrometer.core.instrument.binder.system.UptimeMetrics;
 import io.micrometer.prometheusmetrics.PrometheusConfig;
 import io.micrometer.prometheusmetrics.PrometheusMeterRegistry;
+import io.micrometer.core.instrument.FunctionCounter;
 import io.micrometer.core.instrument.binder.cache.CaffeineCacheMetrics;
 import java.time.Clock;
 import java.util.concurrent.ExecutorService;
@@ -15,6 +16,7 @@ import java.util.concurrent.Executors;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import reckoner.config.ServiceConfig;
+import reckoner.facts.FactsWatcher;
 import reckoner.http.HttpApi;
 import reckoner.spec.Json;
 import reckoner.spec.OpenApi;
@@ -32,10 +34,12 @@ public final class Service implements AutoCloseable {
 
   private final Javalin http;
   private final ExecutorService calls;
+  private final FactsWatcher watcher; // null when polling is off
 
-  private Service(Javalin http, ExecutorService calls) {
+  private Service(Javalin http, ExecutorService calls, FactsWatcher watcher) {
     this.http = http;
     this.calls = calls;
+    this.watcher = watcher;
   }
 
   public static Service start(ServiceConfig config, Clock clock) {
@@ -51,9 +55,16 @@ public final class Service implements AutoCloseable {
     new ProcessorMetrics().bindTo(metrics);
     new UptimeMetrics().bindTo(metrics);
     CaffeineCacheMetrics.monitor(metrics, engine.cache().caffeine(), "answers");
+    FunctionCounter.builder("reckoner.facts.reloads", engine.facts(), f -> f.reloadSuccesses())
+        .description("Fact reloads applied").tag("result", "applied").register(metrics);
+    FunctionCounter.builder("reckoner.facts.reloads", engine.facts(), f -> f.reloadFailures())
+        .description("Fact reloads refused (a bad file; the old data kept serving)").tag("result", "refused").register(metrics);
+    FactsWatcher watcher = config.factsPollMillis() > 0
+        ? FactsWatcher.over(engine.facts(), java.time.Duration.ofMillis(config.factsPollMillis())).start()
+        : null;
 
     HttpApi.Settings settings = new HttpApi.Settings(config.maxBodyBytes(), config.maxBatchBytes(), engine.markup(),
-        OpenApi.assemble(catalog, json, VERSION), () -> !catalog.all().isEmpty(), calls);
+        OpenApi.assemble(catalog, json, VERSION), () -> !catalog.all().isEmpty(), calls, engine.facts());
     Javalin http = HttpApi.create(engine.invoker(), metrics, json, settings);
     http.start(config.host(), config.port());
     LOG.info("serving {} tool versions on http://{}:{} (data dir {})", catalog.all().size(), config.host(), http.port(),
@@ -63,7 +74,7 @@ public final class Service implements AutoCloseable {
     } else {
       LOG.info("no API keys configured: listening on loopback only");
     }
-    return new Service(http, calls);
+    return new Service(http, calls, watcher);
   }
 
   static java.util.concurrent.ThreadFactory daemonThreads(String prefix) {
@@ -82,6 +93,9 @@ public final class Service implements AutoCloseable {
 
   @Override
   public void close() {
+    if (watcher != null) {
+      watcher.close();
+    }
     http.stop();
     calls.shutdown();
   }

@@ -41,7 +41,7 @@ public final class CorpusRunner {
 
   static void run(PrintStream out) throws IOException, URISyntaxException {
     JsonMapper json = Json.newMapper();
-    Invoker invoker = new Invoker(ToolCatalog.of(ToolRegistry.of(Tools.standard()), new SpecLoader(json)), CLOCK);
+    Invoker invoker = new Invoker(ToolCatalog.of(ToolRegistry.of(Tools.demo()), new SpecLoader(json)), CLOCK);
     Path dir = Path.of(CorpusRunner.class.getClassLoader().getResource("corpus").toURI());
     List<Path> files;
     try (Stream<Path> s = Files.list(dir)) {

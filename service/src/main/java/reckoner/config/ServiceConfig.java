@@ -8,6 +8,7 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Properties;
@@ -31,9 +32,14 @@ import java.util.TreeSet;
  * @param markupOpen the server's splice markup: opening string
  * @param markupSeparator the server's splice markup: separator before an answer
  * @param markupClose the server's splice markup: closing string
+ * @param factsDirs more directories of fact files, beside {@code <data dir>/facts}
+ * @param factsDemo whether the shipped demo fact sets are served too
+ * @param factsDefaultSet the fact set a call without {@code set} reads
+ * @param factsPollMillis how often fact files are checked for changes (0: only on an admin reload)
  */
 public record ServiceConfig(String host, int port, Path dataDir, long maxBodyBytes, boolean openAccess,
-    long maxBatchBytes, long cacheSize, int callThreads, String markupOpen, String markupSeparator, String markupClose) {
+    long maxBatchBytes, long cacheSize, int callThreads, String markupOpen, String markupSeparator, String markupClose,
+    List<Path> factsDirs, boolean factsDemo, String factsDefaultSet, long factsPollMillis) {
   /** Every setting with its default. The README's settings table lists the same. */
   public static final Map<String, String> DEFAULTS = defaults();
 
@@ -52,6 +58,10 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     }
     if (callThreads < 0 || callThreads > 512) {
       throw new ConfigException("call-threads must be between 0 and 512 but was " + callThreads);
+    }
+    factsDirs = List.copyOf(factsDirs);
+    if (factsPollMillis < 0) {
+      throw new ConfigException("facts-poll-ms must not be negative but was " + factsPollMillis);
     }
     if (!openAccess && !isLoopback(host)) {
       throw new ConfigException("refusing to listen on " + host + " without API keys: use a loopback host "
@@ -72,6 +82,10 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     d.put("markup-open", "<<");
     d.put("markup-separator", " => ");
     d.put("markup-close", ">>");
+    d.put("facts-dirs", "");
+    d.put("facts-demo", "true");
+    d.put("facts-default-set", "demo");
+    d.put("facts-poll-ms", "2000");
     return java.util.Collections.unmodifiableMap(d);
   }
 
@@ -95,7 +109,11 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
         integer(s, "call-threads"),
         s.get("markup-open"),
         s.get("markup-separator"),
-        s.get("markup-close"));
+        s.get("markup-close"),
+        paths(s.get("facts-dirs")),
+        bool(s, "facts-demo"),
+        s.get("facts-default-set").trim(),
+        longValue(s, "facts-poll-ms"));
   }
 
   /**
@@ -132,6 +150,17 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     Map<String, String> m = new LinkedHashMap<>();
     p.stringPropertyNames().forEach(k -> m.put(k.trim(), k.startsWith("markup-") ? p.getProperty(k) : p.getProperty(k).trim()));
     return m;
+  }
+
+  /** A comma-separated list of paths; empty entries are ignored. */
+  private static List<Path> paths(String value) {
+    List<Path> out = new java.util.ArrayList<>();
+    for (String part : value.split(",")) {
+      if (!part.isBlank()) {
+        out.add(Path.of(part.trim()));
+      }
+    }
+    return out;
   }
 
   private static int integer(Map<String, String> s, String name) {

@@ -11,6 +11,7 @@ import java.util.function.BooleanSupplier;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import reckoner.call.Invoker;
+import reckoner.facts.FactStore;
 import reckoner.splice.Filler;
 import reckoner.splice.Markup;
 import reckoner.tool.ErrorCode;
@@ -27,7 +28,7 @@ public final class HttpApi {
 
   /** What the routes need, made by {@code Main}. */
   public record Settings(long maxBodyBytes, long maxBatchBytes, Markup markup, ObjectNode openApi, BooleanSupplier ready,
-      ExecutorService callExecutor) {}
+      ExecutorService callExecutor, FactStore facts) {}
 
   private HttpApi() {}
 
@@ -38,6 +39,7 @@ public final class HttpApi {
     ToolRoutes tools = new ToolRoutes(invoker, responses, callMetrics, bodies);
     BatchRoutes batch = new BatchRoutes(invoker, responses, callMetrics, new Bodies(settings.maxBatchBytes()),
         settings.callExecutor());
+    FactsRoutes facts = new FactsRoutes(settings.facts(), responses);
     StatusPage status = new StatusPage(callMetrics, responses, java.time.Clock.systemUTC());
     SpliceRoutes splice = new SpliceRoutes(new Filler(invoker), responses, callMetrics, new Bodies(settings.maxBatchBytes()),
         settings.markup());
@@ -60,6 +62,8 @@ public final class HttpApi {
       config.routes.get("/health/ready", ctx -> ready(ctx, responses, settings.ready()));
       config.routes.get("/metrics", ctx -> ctx.contentType("text/plain; version=0.0.4; charset=utf-8").result(metrics.scrape()));
       config.routes.get("/status", status::show);
+      config.routes.get("/v1/admin/facts", facts::show);
+      config.routes.post("/v1/admin/facts/reload", facts::reload);
       config.routes.get("/problems/{code}", ctx -> problemType(ctx, responses));
 
       config.routes.exception(ApiException.class, (e, ctx) -> responses.problem(ctx, e.error(), e.headers()));

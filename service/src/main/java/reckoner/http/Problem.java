@@ -26,7 +26,7 @@ final class Problem {
       case INTERNAL_ERROR -> 500;
       case SYNTAX_ERROR, DOMAIN_ERROR, OVERFLOW, LIMIT_EXCEEDED,
           INVALID_DATE, INVALID_DURATION, UNKNOWN_ZONE, UNKNOWN_CALENDAR, OUT_OF_RANGE,
-          UNKNOWN_UNIT, AMBIGUOUS_UNIT, DIMENSION_MISMATCH, UNSPLICEABLE -> 422;
+          UNKNOWN_UNIT, AMBIGUOUS_UNIT, DIMENSION_MISMATCH, UNSPLICEABLE, DATA_ERROR -> 422;
     };
   }
 
@@ -58,6 +58,7 @@ final class Problem {
       case AMBIGUOUS_UNIT -> "Ambiguous unit";
       case DIMENSION_MISMATCH -> "Dimension mismatch";
       case UNSPLICEABLE -> "Answer cannot be spliced";
+      case DATA_ERROR -> "Data file error";
     };
   }
 

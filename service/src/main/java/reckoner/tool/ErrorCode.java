@@ -24,6 +24,8 @@ public enum ErrorCode {
   INTERNAL_ERROR,
   /** An answer that holds a splice markup string and so cannot be spliced without ambiguity. */
   UNSPLICEABLE,
+  /** A data file (fact set) failed validation on reload; the old data keeps serving. */
+  DATA_ERROR,
   // arith
   SYNTAX_ERROR,
   DOMAIN_ERROR,

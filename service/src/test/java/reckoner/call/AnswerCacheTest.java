@@ -25,7 +25,7 @@ import tools.jackson.databind.json.JsonMapper;
 
 final class AnswerCacheTest {
   private static final JsonMapper JSON = Json.newMapper();
-  private static final ToolCatalog CATALOG = ToolCatalog.of(ToolRegistry.of(Tools.standard()), new SpecLoader(JSON));
+  private static final ToolCatalog CATALOG = ToolCatalog.of(ToolRegistry.of(Tools.demo()), new SpecLoader(JSON));
 
   /** A corpus of calls with many repeats, across tools and both argument forms. */
   static List<CallRequest> corpus(int size, long seed) {

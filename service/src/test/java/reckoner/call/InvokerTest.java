@@ -17,7 +17,7 @@ import tools.jackson.databind.json.JsonMapper;
 
 final class InvokerTest {
   private static final JsonMapper JSON = Json.newMapper();
-  private final Invoker invoker = new Invoker(ToolCatalog.of(ToolRegistry.of(Tools.standard()), new SpecLoader(JSON)), Clock.systemUTC());
+  private final Invoker invoker = new Invoker(ToolCatalog.of(ToolRegistry.of(Tools.demo()), new SpecLoader(JSON)), Clock.systemUTC());
 
   private Outcome call(String tool, OptionalInt version, String args) {
     return invoker.invoke(new CallRequest(tool, version, JSON.readTree(args), null, null, null));

@@ -39,7 +39,7 @@ final class FillCommandTest {
     }
     Files.writeString(in, sb.toString());
     Path out = dir.resolve("filled.jsonl");
-    Invoker invoker = new Invoker(ToolCatalog.of(ToolRegistry.of(Tools.standard()), new SpecLoader(JSON)), Clock.systemUTC(),
+    Invoker invoker = new Invoker(ToolCatalog.of(ToolRegistry.of(Tools.demo()), new SpecLoader(JSON)), Clock.systemUTC(),
         AnswerCache.ofMaximumSize(1000));
     ExecutorService pool = Executors.newFixedThreadPool(2);
     ByteArrayOutputStream progress = new ByteArrayOutputStream();

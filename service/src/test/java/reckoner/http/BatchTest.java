@@ -46,17 +46,18 @@ final class BatchTest {
     body.append("]}");
     JsonPath r = given().port(server.port()).contentType("application/json").body(body.toString()).post("/v1/batch")
         .then().statusCode(200).extract().jsonPath();
-    List<String> ids = r.getList("results.id");
-    assertEquals(500, ids.size());
+    List<java.util.Map<String, Object>> results = r.getList("results"); // one path evaluation, not 1,500
+    assertEquals(500, results.size());
     for (int i = 0; i < 500; i++) {
-      assertEquals("c" + i, ids.get(i));
+      java.util.Map<String, Object> result = results.get(i);
+      assertEquals("c" + i, result.get("id"));
       if (i % 50 == 7) {
-        assertEquals(false, r.getBoolean("results[" + i + "].ok"));
-        assertEquals("domain_error", r.getString("results[" + i + "].code"));
+        assertEquals(false, result.get("ok"));
+        assertEquals("domain_error", result.get("code"));
       } else {
-        assertEquals(true, r.getBoolean("results[" + i + "].ok"));
+        assertEquals(true, result.get("ok"));
         assertEquals(new java.math.BigDecimal(i).divide(new java.math.BigDecimal(8)).setScale(3).stripTrailingZeros()
-            .toPlainString().replaceAll("^0E.*", "0"), r.getString("results[" + i + "].text"));
+            .toPlainString().replaceAll("^0E.*", "0"), result.get("text"));
       }
     }
   }

@@ -28,7 +28,7 @@ import tools.jackson.databind.node.ObjectNode;
  */
 final class OpenApiTest {
   private static final JsonMapper JSON = Json.newMapper();
-  private static final ToolCatalog CATALOG = ToolCatalog.of(ToolRegistry.of(Tools.standard()), new SpecLoader(JSON));
+  private static final ToolCatalog CATALOG = ToolCatalog.of(ToolRegistry.of(Tools.demo()), new SpecLoader(JSON));
 
   @Test
   void openApiDocument_parsesWithoutErrorsOrWarnings() {

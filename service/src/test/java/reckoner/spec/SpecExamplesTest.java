@@ -20,7 +20,7 @@ import reckoner.tool.ToolRegistry;
 final class SpecExamplesTest {
   /** A fixed clock: examples that need "now" must pass as_of, and a fixed clock keeps the rest honest. */
   private static final Clock CLOCK = Clock.fixed(Instant.parse("2031-05-17T09:30:00Z"), ZoneOffset.UTC);
-  private static final ToolCatalog CATALOG = ToolCatalog.of(ToolRegistry.of(Tools.standard()), new SpecLoader(Json.newMapper()));
+  private static final ToolCatalog CATALOG = ToolCatalog.of(ToolRegistry.of(Tools.demo()), new SpecLoader(Json.newMapper()));
   private static final Invoker INVOKER = new Invoker(CATALOG, CLOCK);
 
   @TestFactory

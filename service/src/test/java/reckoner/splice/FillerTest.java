@@ -20,7 +20,7 @@ import reckoner.spec.ToolCatalog;
 import reckoner.tool.ToolRegistry;
 
 final class FillerTest {
-  private static final Invoker INVOKER = new Invoker(ToolCatalog.of(ToolRegistry.of(Tools.standard()), new SpecLoader(Json.newMapper())),
+  private static final Invoker INVOKER = new Invoker(ToolCatalog.of(ToolRegistry.of(Tools.demo()), new SpecLoader(Json.newMapper())),
       Clock.systemUTC());
   private final Filler filler = new Filler(INVOKER);
 
