@@ -2,6 +2,7 @@ package reckoner;
 
 import java.util.List;
 import reckoner.arith.ArithTool;
+import reckoner.dates.DatesTool;
 import reckoner.tool.Tool;
 
 /** The tool versions this build serves, listed explicitly. A new version is one more line. */
@@ -10,6 +11,7 @@ public final class Tools {
 
   public static List<Tool> standard() {
     return List.of(
-        new ArithTool());
+        new ArithTool(),
+        new DatesTool());
   }
 }
