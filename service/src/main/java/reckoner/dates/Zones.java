@@ -72,8 +72,9 @@ final class Zones {
       if (key.substring(key.lastIndexOf('/') + 1).equals(last)) {
         sameCity.add(e.getValue());
       }
-      int distance = Names.editDistance(lower, key);
-      if (distance <= Math.max(2, lower.length() / 4)) {
+      int limit = Math.max(2, lower.length() / 4);
+      int distance = Names.editDistance(lower, key, limit);
+      if (distance <= limit) {
         scored.add(Map.entry(e.getValue(), distance));
       }
     }
