@@ -11,7 +11,9 @@ import reckoner.tool.ToolException;
 
 /**
  * BCP 47 locale tags for {@code style=long}: well-formed, and of a language for which ICU4J has
- * CLDR data (otherwise ICU would quietly fall back to its root locale). Thread-safe.
+ * CLDR data (otherwise ICU would quietly fall back to its root locale). A calendar named in the tag
+ * ({@code -u-ca-}) is dropped: the calendar of an answer comes from the {@code calendar} argument
+ * alone. Thread-safe.
  */
 final class Locales {
   /** The wording locale when {@code style=long} is asked without a locale. */
@@ -37,7 +39,7 @@ final class Locales {
     } catch (IllformedLocaleException e) {
       throw Problems.invalidArgument("locale must be a BCP 47 language tag such as en-US or fr-FR but was " + Problems.quote(tag));
     }
-    ULocale locale = ULocale.forLanguageTag(s);
+    ULocale locale = ULocale.forLanguageTag(s).setKeywordValue("calendar", null);
     if (!LANGUAGES.contains(locale.getLanguage())) {
       throw Problems.invalidArgument("no CLDR wording for the language of " + Problems.quote(tag)
           + "; give a language ICU knows, such as en, fr, de, ar, hi, ja");

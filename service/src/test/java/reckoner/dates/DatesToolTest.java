@@ -165,6 +165,9 @@ final class DatesToolTest {
         tool.canonicalize(Arguments.of(Map.of("text", "weekday 2024-03-01", "locale", "fr_fr"))).toCanonicalJson());
     assertEquals("{\"date\":\"2024-03-01\",\"locale\":\"en-US\",\"op\":\"weekday\",\"style\":\"long\"}",
         tool.canonicalize(Arguments.of(Map.of("op", "weekday", "date", "2024-03-01", "style", "long"))).toCanonicalJson());
+    assertEquals("{\"date\":\"2024-03-01\",\"locale\":\"th-TH\",\"op\":\"weekday\",\"style\":\"long\"}",
+        tool.canonicalize(Arguments.of(Map.of("op", "weekday", "date", "2024-03-01", "locale", "th-TH-u-ca-buddhist")))
+            .toCanonicalJson()); // the calendar comes from the calendar argument, never from the locale
     assertEquals("{\"date\":\"2020-12-31\",\"op\":\"iso_week\"}", // nothing to word: style and locale are dropped
         tool.canonicalize(Arguments.of(Map.of("op", "iso_week", "date", "2020-12-31", "locale", "de-DE"))).toCanonicalJson());
   }
