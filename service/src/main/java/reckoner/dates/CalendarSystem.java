@@ -24,8 +24,9 @@ import reckoner.tool.ToolException;
  * The calendar systems a date can be shown in, by their BCP 47 / CLDR keys, computed by ICU4J. Each
  * says how its year is counted and which ISO dates it serves: the arithmetic calendars ISO years
  * -9999 to 9999; {@code japanese} from 1873-01-01 (Meiji 6, when Japan took up the Gregorian
- * calendar); {@code chinese} ISO years 1901 to 2100; {@code islamic-umalqura} the years 1300 to
- * 1600 AH of the Umm al-Qura table. Calendars are made per call; the enum is thread-safe.
+ * calendar); {@code indian} from 0079-03-22 (Saka 1; ICU4J's Indian calendar does not round-trip
+ * before Julian day 0); {@code chinese} ISO years 1901 to 2100; {@code islamic-umalqura} the years
+ * 1300 to 1600 AH of the Umm al-Qura table. Calendars are made per call; the enum is thread-safe.
  */
 enum CalendarSystem {
   GREGORY("gregory", YearCount.EXTENDED, "gregorian"),
@@ -49,11 +50,12 @@ enum CalendarSystem {
     ERA_YEAR,
     /** An era name and its year: {@code reiwa 6}. */
     NAMED_ERA,
-    /** The Gregorian year in which the Chinese year begins (as ECMAScript Temporal counts it). */
+    /** The Gregorian year in which the Chinese year begins (as ECMAScript Temporal counts it), found with ICU's public API. */
     RELATED_GREGORIAN
   }
 
   static final LocalDate JAPANESE_FIRST = LocalDate.of(1873, 1, 1);
+  static final LocalDate INDIAN_FIRST = LocalDate.of(79, 3, 22); // 1 Chaitra 1 Saka
   static final int ISO_MIN_YEAR = -9999;
   static final int ISO_MAX_YEAR = 9999;
   static final int CHINESE_MIN_YEAR = 1901;
@@ -136,7 +138,7 @@ enum CalendarSystem {
     return switch (yearCount) {
       case EXTENDED -> new CalendarDate(Optional.empty(), calendar.get(Calendar.EXTENDED_YEAR), month, day);
       case ERA_YEAR -> new CalendarDate(Optional.empty(), calendar.get(Calendar.YEAR), month, day);
-      case RELATED_GREGORIAN -> new CalendarDate(Optional.empty(), calendar.getRelatedYear(), month, day);
+      case RELATED_GREGORIAN -> new CalendarDate(Optional.empty(), relatedGregorianYear(calendar), month, day);
       case NAMED_ERA -> new CalendarDate(Optional.of(eraCode(calendar.get(Calendar.ERA))), calendar.get(Calendar.YEAR), month, day);
     };
   }
@@ -145,6 +147,10 @@ enum CalendarSystem {
     if (this == JAPANESE && date.isBefore(JAPANESE_FIRST)) {
       throw Problems.outOfRange("the japanese calendar here starts at " + JAPANESE_FIRST
           + " (Meiji 6, when Japan took up the Gregorian calendar); " + date + " is earlier");
+    }
+    if (this == INDIAN && date.isBefore(INDIAN_FIRST)) {
+      throw Problems.outOfRange("the indian calendar here starts at " + INDIAN_FIRST + " (1 Chaitra, Saka 1); " + date
+          + " is earlier");
     }
     if (this == CHINESE && (date.getYear() < CHINESE_MIN_YEAR || date.getYear() > CHINESE_MAX_YEAR)) {
       throw Problems.outOfRange("the chinese calendar here covers ISO years " + CHINESE_MIN_YEAR + " to "
@@ -190,7 +196,7 @@ enum CalendarSystem {
           calendar.set(Calendar.ERA, 0);
           calendar.set(Calendar.YEAR, date.year());
         }
-        case RELATED_GREGORIAN -> calendar.setRelatedYear(date.year());
+        case RELATED_GREGORIAN -> calendar.set(Calendar.EXTENDED_YEAR, chineseYearBegunIn(date.year()));
         case NAMED_ERA -> {
           calendar.set(Calendar.ERA, JAPANESE_ERAS.get(date.era().get()));
           calendar.set(Calendar.YEAR, date.year());
@@ -219,6 +225,24 @@ enum CalendarSystem {
       default -> "";
     };
     return Problems.invalidDate(date + " does not exist in the " + key + " calendar" + hint);
+  }
+
+  /* ------------------------------------------------ the Chinese year count ------------------------------------------------ */
+
+  /** The Gregorian year of the day on which this Chinese year began (day 1 of its year). */
+  private static int relatedGregorianYear(Calendar chinese) {
+    long epochDay = Math.floorDiv(chinese.getTimeInMillis(), MILLIS_PER_DAY);
+    return LocalDate.ofEpochDay(epochDay - (chinese.get(Calendar.DAY_OF_YEAR) - 1)).getYear();
+  }
+
+  /**
+   * ICU's own count of the Chinese year that begins in Gregorian {@code year}: the one 1 March
+   * lies in, as the new year always falls between 21 January and 20 February.
+   */
+  private int chineseYearBegunIn(int year) {
+    Calendar probe = newCalendar();
+    probe.setTimeInMillis(Math.multiplyExact(LocalDate.of(year, 3, 1).toEpochDay(), MILLIS_PER_DAY));
+    return probe.get(Calendar.EXTENDED_YEAR);
   }
 
   /* ------------------------------------------------ tables ------------------------------------------------ */

@@ -122,6 +122,15 @@ final class CalendarTablesTest {
     roundTrip("islamic-umalqura", iso, hijri);
   }
 
+  // The Indian national calendar (Saka era): in use from 1 Chaitra 1879 = 1957-03-22; 1 Chaitra falls on 22 March, or on
+  // 21 March in a Gregorian leap year (Calendar Reform Committee rules, from memory).
+  @ParameterizedTest(name = "{0}")
+  @CsvSource({"1957-03-22, 1879-01-01", "2023-03-22, 1945-01-01", "2024-03-21, 1946-01-01", "2025-03-22, 1947-01-01",
+      "0079-03-22, 0001-01-01"})
+  void indianNationalCalendar_chaitraFirst(String iso, String saka) {
+    roundTrip("indian", iso, saka);
+  }
+
   // The Thai solar calendar counts Buddhist Era years, BE = CE + 543 (from memory), with Gregorian months and days.
   @ParameterizedTest(name = "{0}")
   @CsvSource({"2024-10-03, 2567-10-03", "1941-01-01, 2484-01-01", "2000-02-29, 2543-02-29", "1970-01-01, 2513-01-01"})
