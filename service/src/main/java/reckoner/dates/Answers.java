@@ -69,6 +69,7 @@ final class Answers {
       clockRead = context.clock().instant(); // read once
       reference = Moment.of(ZonedDateTime.ofInstant(clockRead, zone.orElse(ZoneOffset.UTC)));
     }
+    IsoText.checked(reference.date()); // an offset or zone can carry the edge of the range over it
     String text;
     if (op == Op.TODAY) {
       text = dateText(reference.date(), words);

@@ -99,13 +99,16 @@ final class Moment {
     return m;
   }
 
-  /** The moment in {@code zone}: the same instant; a local date-time must have been placed first. */
-  Moment in(ZoneId zone) {
+  /**
+   * The moment in {@code zone}: the same instant; a local date-time must have been placed first.
+   * out_of_range if the local date there leaves the supported years.
+   */
+  Moment in(ZoneId zone) throws ToolException {
     if (value instanceof OffsetDateTime fixed) {
-      return new Moment(fixed.atZoneSameInstant(zone));
+      return checked(new Moment(fixed.atZoneSameInstant(zone)));
     }
     if (value instanceof ZonedDateTime zoned) {
-      return new Moment(zoned.withZoneSameInstant(zone));
+      return checked(new Moment(zoned.withZoneSameInstant(zone)));
     }
     throw new IllegalStateException("a local date or date-time is no instant: " + value);
   }

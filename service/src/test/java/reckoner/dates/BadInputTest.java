@@ -94,6 +94,9 @@ final class BadInputTest {
         bad("{\"op\":\"to_calendar\",\"date\":\"12000-01-01\",\"calendar\":\"hebrew\"}", ErrorCode.OUT_OF_RANGE),
         bad("{\"op\":\"from_calendar\",\"date\":\"1700-01-01\",\"calendar\":\"islamic-umalqura\"}", ErrorCode.OUT_OF_RANGE),
         bad("{\"op\":\"from_calendar\",\"date\":\"9999999-01-01\",\"calendar\":\"persian\"}", ErrorCode.OUT_OF_RANGE),
+        bad("{\"op\":\"convert_zone\",\"date\":\"+999999-12-31T23:00\",\"zone\":\"UTC\",\"to\":\"Pacific/Kiritimati\"}",
+            ErrorCode.OUT_OF_RANGE),
+        bad("{\"op\":\"today\",\"as_of\":\"+999999-12-31T23:00-12:00\",\"zone\":\"Pacific/Kiritimati\"}", ErrorCode.OUT_OF_RANGE),
         // arguments a caller got wrong
         bad("{\"text\":\"what day is it\"}", ErrorCode.INVALID_ARGUMENT),
         bad("{\"text\":\"\"}", ErrorCode.INVALID_ARGUMENT),
