@@ -6,7 +6,6 @@ import java.util.IllformedLocaleException;
 import java.util.Locale;
 import java.util.Set;
 import java.util.TreeSet;
-
 import reckoner.tool.ToolException;
 
 /**

@@ -1,5 +1,6 @@
 package reckoner.dates;
 
+import com.ibm.icu.util.ULocale;
 import java.time.DateTimeException;
 import java.time.LocalDate;
 import java.time.LocalDateTime;
@@ -10,7 +11,6 @@ import java.time.ZonedDateTime;
 import java.time.temporal.Temporal;
 import java.util.Objects;
 import java.util.Optional;
-import com.ibm.icu.util.ULocale;
 import reckoner.tool.ToolException;
 
 /**

@@ -71,7 +71,6 @@ final class TextForm {
   /* ------------------------------------------------ forms led by a keyword ------------------------------------------------ */
 
   private static Optional<Map<String, String>> keywordFirst(String[] t, String[] w) throws ToolException {
-    int n = t.length;
     if (w[0].equals("today")) {
       return Optional.of(inZone(args("today"), t, w, 1, "today [in ZONE]"));
     }
