@@ -2,6 +2,7 @@ package reckoner;
 
 import java.util.List;
 import reckoner.arith.ArithTool;
+import reckoner.dates.DatesTool;
 import reckoner.facts.FactLoadException;
 import reckoner.facts.FactSource;
 import reckoner.facts.FactStore;
@@ -17,6 +18,7 @@ public final class Tools {
   public static List<Tool> standard(FactStore facts) {
     return List.of(
         new ArithTool(),
+        new DatesTool(),
         new UnitsTool(),
         new FactsTool(facts));
   }
