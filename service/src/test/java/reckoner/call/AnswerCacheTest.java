@@ -128,4 +128,35 @@ final class AnswerCacheTest {
     assertEquals("answer from v2", after.text());
     assertFalse(after.cached());
   }
+
+  @Test
+  void realFactsReload_andDifferentAsOf_neverServeAStaleAnswer(@org.junit.jupiter.api.io.TempDir java.nio.file.Path dir)
+      throws Exception {
+    java.nio.file.Path file = dir.resolve("ops.jsonl");
+    java.nio.file.Files.writeString(file, "{\"set\":\"ops\",\"key\":\"harbour master\",\"value\":\"Ilse Varrow\"}\n");
+    reckoner.facts.FactStore store = reckoner.facts.FactStore.open(List.of(reckoner.facts.FactSource.directory(dir)), "ops");
+    ToolCatalog catalog = ToolCatalog.of(ToolRegistry.of(Tools.standard(store)), new SpecLoader(JSON));
+    Invoker invoker = new Invoker(catalog, Clock.systemUTC(), AnswerCache.ofMaximumSize(1000));
+    JsonNode key = JSON.readTree("{\"key\":\"Harbour  Master\"}");
+    assertEquals("Ilse Varrow", invoker.invoke(CallRequest.of("facts", 1, key)).text());
+    assertTrue(invoker.invoke(CallRequest.of("facts", 1, key)).cached());
+    java.nio.file.Files.writeString(file, "{\"set\":\"ops\",\"key\":\"harbour master\",\"value\":\"Oren Tamsby\"}\n");
+    assertTrue(store.reload().applied());
+    Outcome after = invoker.invoke(CallRequest.of("facts", 1, key));
+    assertEquals("Oren Tamsby", after.text());
+    assertFalse(after.cached());
+
+    // dates: the reference time is part of the canonical arguments, so another as_of is another entry.
+    JsonNode march = JSON.readTree("{\"text\":\"45 days ago\",\"as_of\":\"2024-03-01\"}");
+    JsonNode april = JSON.readTree("{\"text\":\"45 days ago\",\"as_of\":\"2024-04-01\"}");
+    String first = invoker.invoke(CallRequest.of("dates", 1, march)).text();
+    assertTrue(invoker.invoke(CallRequest.of("dates", 1, march)).cached());
+    Outcome other = invoker.invoke(CallRequest.of("dates", 1, april));
+    assertFalse(other.cached());
+    assertTrue(!first.equals(other.text()), first + " vs " + other.text());
+    // Without as_of the server clock is read: never from the cache.
+    JsonNode today = JSON.readTree("{\"text\":\"today\"}");
+    invoker.invoke(CallRequest.of("dates", 1, today));
+    assertFalse(invoker.invoke(CallRequest.of("dates", 1, today)).cached());
+  }
 }
