@@ -201,6 +201,7 @@ final class SqliteLedgerStore extends JdbcLedgerStore {
         "CREATE INDEX invocations_by_run ON invocations (run, id) WHERE run IS NOT NULL",
         "CREATE INDEX invocations_by_tool ON invocations (tool, id)",
         "CREATE INDEX invocations_by_error ON invocations (outcome, id) WHERE outcome <> 'ok'",
+        "CREATE INDEX invocations_errors ON invocations (id) WHERE outcome <> 'ok'",
         "CREATE INDEX invocations_by_ref ON invocations (ref, id) WHERE ref IS NOT NULL",
         "CREATE TABLE ledger_probe (n INTEGER PRIMARY KEY, pad BLOB)"));
   }
