@@ -111,6 +111,8 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
   private final LinkedBlockingQueue<Entry> queue = new LinkedBlockingQueue<>();
   private final Semaphore room;
   private final Thread thread;
+  /** Async records kept through a failure, oldest first; touched by the writer thread only. */
+  private final ArrayDeque<Entry> held = new ArrayDeque<>();
 
   private volatile boolean healthy = true;
   private volatile boolean closing;
@@ -248,7 +250,22 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
   // ---- the writer thread ----
 
   private void run() {
-    ArrayDeque<Entry> held = new ArrayDeque<>(); // async records kept through a failure, oldest first
+    try {
+      loop();
+    } catch (RuntimeException | Error e) {
+      // Not reached by store failures (write() catches them); a defect here must not leave callers waiting forever.
+      LOG.error("the ledger writer stopped on an unexpected failure; failing what is queued", e);
+      healthy = false;
+      closing = true;
+      for (Entry entry; (entry = queue.poll()) != null; ) {
+        hold(entry, held);
+      }
+      abandon(held);
+      throw e;
+    }
+  }
+
+  private void loop() {
     long backoff = settings.minBackoff().toNanos();
     while (true) {
       List<Entry> batch = new ArrayList<>();
@@ -321,7 +338,7 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
     long start = System.nanoTime();
     try {
       store.append(records);
-    } catch (RuntimeException e) {
+    } catch (RuntimeException | Error e) { // a driver may throw an Error when its connection drops; the writer lives on
       failed(e);
       return false;
     }
@@ -360,7 +377,7 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
       store.probe();
       recovered();
       return settings.minBackoff().toNanos();
-    } catch (RuntimeException e) {
+    } catch (RuntimeException | Error e) {
       failed(e);
       return waitBeforeRetry(backoff);
     }
@@ -378,9 +395,9 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
     return Math.min(backoff * 2, settings.maxBackoff().toNanos());
   }
 
-  private void failed(RuntimeException e) {
+  private void failed(Throwable e) {
     failures.incrementAndGet();
-    lastFailure = e.getMessage();
+    lastFailure = e.getMessage() == null ? e.getClass().getName() : e.getMessage();
     if (healthy) {
       LOG.error("ledger writes are failing; calls in commit mode answer 503 until they resume, retrying", e);
     } else {

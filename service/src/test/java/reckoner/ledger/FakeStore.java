@@ -16,6 +16,8 @@ import java.util.concurrent.TimeUnit;
 final class FakeStore implements LedgerStore {
   final List<List<Invocation>> batches = new ArrayList<>();
   volatile boolean failing;
+  /** Fail as some drivers do when a connection drops mid-batch: with an Error, not an exception. */
+  volatile boolean failingWithError;
   volatile int probes;
   private volatile CountDownLatch gate = new CountDownLatch(0);
   private final CountDownLatch entered = new CountDownLatch(1);
@@ -55,6 +57,9 @@ final class FakeStore implements LedgerStore {
       }
     } catch (InterruptedException e) {
       Thread.currentThread().interrupt();
+    }
+    if (failingWithError) {
+      throw new AssertionError("driver assertion on a dropped connection");
     }
     if (failing) {
       throw new LedgerUnavailableException(LedgerUnavailableException.Reason.STORE_FAILED, "fake store: disk full",

@@ -143,6 +143,19 @@ final class LedgerWriterTest {
     assertEquals(2, writer.recordsRefused());
   }
 
+  @Test
+  void append_storeThrowsAnError_failsTheCallAndTheWriterLivesOn() throws Exception {
+    store.failingWithError = true;
+    writer = LedgerWriter.start(store, FAST, LedgerStats.CommitListener.none());
+    LedgerUnavailableException e = failure(writer.append(rec(0)));
+    assertEquals("the ledger cannot be written: driver assertion on a dropped connection", e.getMessage());
+    assertTrue(writer.offer(rec(1)));
+    store.failingWithError = false;
+    await(() -> writer.recordsWritten() == 1);
+    writer.append(rec(2)).get(10, TimeUnit.SECONDS);
+    assertEquals(List.of(id(1, 0), id(2, 0)), store.ids());
+  }
+
   // ---- async mode ----
 
   @Test

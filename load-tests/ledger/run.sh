@@ -1,0 +1,15 @@
+#!/usr/bin/env bash
+# Measures the SQLite ledger on this machine: write throughput (baselines, then the group-commit
+# writer after a warm-up) and, with "query", filter latencies over a large ledger.
+#
+#   bash load-tests/ledger/run.sh                 # write: 45 s warm-up, 30 s measured
+#   bash load-tests/ledger/run.sh write 45 30
+#   bash load-tests/ledger/run.sh query 10000000  # fills 10 million records, then times each filter
+#
+# Everything runs in one JVM against a ledger in a temp dir that is removed afterwards.
+set -euo pipefail
+cd "$(dirname "$0")/../.."
+mvn -B -q -o test-compile -pl service
+mvn -B -q -o dependency:build-classpath -pl service -Dmdep.outputFile=target/bench-classpath.txt -Dmdep.includeScope=test
+CP="service/target/test-classes:service/target/classes:$(cat service/target/bench-classpath.txt)"
+exec java -Xmx2g -cp "$CP" reckoner.ledger.LedgerBenchmark "${@:-write}"
