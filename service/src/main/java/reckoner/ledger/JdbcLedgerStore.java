@@ -114,7 +114,8 @@ abstract class JdbcLedgerStore implements LedgerStore {
       inWriteTransaction(c -> {
         try (PreparedStatement ps = c.prepareStatement(INSERT)) {
           for (Invocation inv : invocations) {
-            bindId(ps, 1, inv.uuid());
+            UUID id = IdBounds.parse(inv.id());
+            bindId(ps, 1, id);
             ps.setString(2, inv.keyId());
             ps.setString(3, inv.run());
             ps.setString(4, inv.ref());
@@ -131,7 +132,7 @@ abstract class JdbcLedgerStore implements LedgerStore {
             ps.setLong(11, inv.elapsedUs());
             ps.setString(12, inv.dataVersion());
             ps.setString(13, inv.asOf());
-            bindTs(ps, 14, inv.ts());
+            bindTs(ps, 14, Instant.ofEpochMilli(id.getMostSignificantBits() >>> 16)); // the time in the id
             ps.addBatch();
           }
           ps.executeBatch();

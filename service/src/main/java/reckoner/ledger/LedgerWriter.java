@@ -6,9 +6,11 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
 import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.ExecutionException;
 import java.util.concurrent.LinkedBlockingQueue;
 import java.util.concurrent.Semaphore;
 import java.util.concurrent.TimeUnit;
+import java.util.concurrent.TimeoutException;
 import java.util.concurrent.atomic.AtomicLong;
 import java.util.concurrent.locks.LockSupport;
 import java.util.stream.Collectors;
@@ -177,6 +179,30 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
     Entry entry = new Entry(invocation, new CompletableFuture<>());
     queue.add(entry);
     return entry.done();
+  }
+
+  /**
+   * Durability {@code commit}, blocking: returns once {@code invocation} is committed, or throws.
+   * Waits at most {@code timeout} for the commit; a record that times out may still be committed
+   * afterwards (the caller has been told 503, and the ledger holds the call it made).
+   *
+   * @throws LedgerUnavailableException when the record is not committed (store failing, queue full,
+   *     closed, or timed out)
+   */
+  public void commit(Invocation invocation, Duration timeout) {
+    try {
+      append(invocation).get(timeout.toNanos(), TimeUnit.NANOSECONDS);
+    } catch (ExecutionException e) {
+      if (e.getCause() instanceof LedgerUnavailableException u) {
+        throw u;
+      }
+      throw unavailable(Reason.STORE_FAILED, "the ledger write failed: " + e.getCause(), e.getCause());
+    } catch (TimeoutException e) {
+      throw unavailable(Reason.STORE_FAILED, "the ledger did not commit within " + timeout, e);
+    } catch (InterruptedException e) {
+      Thread.currentThread().interrupt();
+      throw unavailable(Reason.CLOSED, "interrupted while waiting for the ledger", e);
+    }
   }
 
   /**

@@ -82,6 +82,7 @@ final class IdBoundsTest {
       UUID a = new UUID(random.nextLong(), random.nextLong());
       UUID b = new UUID(random.nextLong(), random.nextLong());
       assertEquals(a, IdBounds.fromBytes(IdBounds.bytes(a)));
+      assertEquals(a, IdBounds.parse(a.toString()));
       assertEquals(Integer.signum(IdBounds.compare(a.toString(), b.toString())),
           Integer.signum(Arrays.compareUnsigned(IdBounds.bytes(a), IdBounds.bytes(b))));
     }

@@ -43,6 +43,10 @@ final class LedgerBenchmark {
         int warmup = args.length > 1 ? Integer.parseInt(args[1]) : 45;
         int measure = args.length > 2 ? Integer.parseInt(args[2]) : 30;
         new LedgerBenchmark(false).write(dir, warmup, measure);
+      } else if (mode.equals("writer")) { // the group-commit writer alone, for profiling
+        try (LedgerStore store = LedgerStore.sqlite(dir)) {
+          new LedgerBenchmark(false).asyncWriter(store, "FULL", false, Integer.parseInt(args[1]), Integer.parseInt(args[2]));
+        }
       } else if (mode.equals("query")) {
         new LedgerBenchmark(false).query(dir, args.length > 1 ? Long.parseLong(args[1]) : 10_000_000L);
       } else {
@@ -140,12 +144,14 @@ final class LedgerBenchmark {
     long w0 = writer.recordsWritten();
     long c0 = writer.commits();
     long ns0 = writer.commitNanos();
+    long cpu0 = writerCpuNanos();
     long t0 = System.nanoTime();
     Thread.sleep(measureSeconds * 1000L);
     long elapsed = System.nanoTime() - t0;
     long records = writer.recordsWritten() - w0;
     long commits = writer.commits() - c0;
     long commitNanos = writer.commitNanos() - ns0;
+    long cpu = writerCpuNanos() - cpu0;
     stop.set(true);
     for (Thread p : producers) {
       p.join();
@@ -156,6 +162,8 @@ final class LedgerBenchmark {
         records, elapsed);
     System.out.printf("    mean batch %.0f records, mean commit %.2f ms, %d records in the file%n",
         (double) records / commits, commitNanos / 1e6 / commits, writer.recordsWritten());
+    System.out.printf("    writer thread: %.1f CPU-s in %.1f s of wall time, %,.0f records per writer CPU-second%n",
+        cpu / 1e9, elapsed / 1e9, records / (cpu / 1e9));
   }
 
   private void commitWriter(LedgerStore store, int callers, int warmupSeconds, int measureSeconds) throws Exception {
@@ -192,6 +200,17 @@ final class LedgerBenchmark {
     report("group-commit writer, commit mode, " + callers + " callers each waiting for its commit, sync FULL",
         records, elapsed);
     System.out.printf("    mean batch %.0f records, mean commit %.2f ms%n", (double) records / commits, commitNanos / 1e6 / commits);
+  }
+
+  /** CPU time of the writer's thread so far: what the writer costs, whatever else the machine runs. */
+  private static long writerCpuNanos() {
+    java.lang.management.ThreadMXBean mx = java.lang.management.ManagementFactory.getThreadMXBean();
+    for (Thread t : Thread.getAllStackTraces().keySet()) {
+      if (t.getName().equals("ledger-writer")) {
+        return mx.getThreadCpuTime(t.getId());
+      }
+    }
+    throw new IllegalStateException("no ledger-writer thread");
   }
 
   private static void report(String what, long records, long nanos) {
