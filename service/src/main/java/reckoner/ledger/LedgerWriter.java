@@ -470,10 +470,14 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
     } catch (InterruptedException e) {
       Thread.currentThread().interrupt();
     }
+    if (thread.isAlive()) {
+      LOG.error("the ledger writer did not finish draining in time; {} records still queued", queue.size());
+      return;
+    }
     // Records that raced with closing reach here after the thread has ended: one last try.
     List<Entry> left = new ArrayList<>();
     queue.drainTo(left);
-    if (!left.isEmpty() && !thread.isAlive() && !write(left)) {
+    if (!left.isEmpty() && !write(left)) {
       ArrayDeque<Entry> held = new ArrayDeque<>();
       left.forEach(e -> hold(e, held));
       abandon(held);

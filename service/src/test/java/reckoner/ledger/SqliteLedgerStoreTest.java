@@ -86,6 +86,22 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
     }
   }
 
+  @Test
+  void optimize_afterWrites_recordsPlannerStatistics() throws Exception {
+    List<Invocation> many = new ArrayList<>();
+    for (int i = 0; i < 500; i++) {
+      many.add(call(i, 0, HERON).ref("plot-" + i + ":row-1").build());
+    }
+    store.append(many);
+    ((SqliteLedgerStore) store).optimize();
+    try (Connection c = raw(); Statement st = c.createStatement();
+         ResultSet rs = st.executeQuery("SELECT count(*) FROM sqlite_stat1 WHERE idx = 'invocations_by_ref'")) {
+      rs.next();
+      assertEquals(1, rs.getInt(1));
+    }
+    assertEquals(List.of(id(7, 0)), idsOf(admin().withRefPrefix("plot-7:")));
+  }
+
   // ---- query plans: every filter reads an index in id order, never sorts ----
 
   static Stream<Arguments> plans() {
