@@ -23,8 +23,9 @@ import javax.sql.DataSource;
 abstract class JdbcLedgerStore implements LedgerStore {
   static final String COLUMNS =
       "id, key_id, run, ref, tool, version, args, text, outcome, cached, elapsed_us, data_version, as_of";
-  private static final String INSERT = "INSERT INTO invocations (" + COLUMNS + ", ts) "
-      + "VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?) ON CONFLICT (id) DO NOTHING";
+  private static final String INSERT_HEAD = "INSERT INTO invocations (" + COLUMNS + ", ts) VALUES ";
+  private static final String INSERT_ROW = "(?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)";
+  private static final int INSERT_COLUMNS = 14;
   /** Rows fetched per round trip when streaming. */
   static final int FETCH_SIZE = 500;
   private static final int PROBE_BYTES = 8192;
@@ -110,38 +111,70 @@ abstract class JdbcLedgerStore implements LedgerStore {
     if (invocations.isEmpty()) {
       return;
     }
+    int per = rowsPerStatement();
+    int whole = invocations.size() / per;
+    int rest = invocations.size() % per;
     try {
       inWriteTransaction(c -> {
-        try (PreparedStatement ps = c.prepareStatement(INSERT)) {
-          for (Invocation inv : invocations) {
-            UUID id = IdBounds.parse(inv.id());
-            bindId(ps, 1, id);
-            ps.setString(2, inv.keyId());
-            ps.setString(3, inv.run());
-            ps.setString(4, inv.ref());
-            ps.setString(5, inv.tool());
-            if (inv.version() == null) {
-              ps.setNull(6, java.sql.Types.INTEGER);
-            } else {
-              ps.setInt(6, inv.version());
+        if (whole > 0) {
+          try (PreparedStatement ps = c.prepareStatement(insert(per))) {
+            for (int k = 0; k < whole; k++) {
+              for (int r = 0; r < per; r++) {
+                bindRow(ps, r * INSERT_COLUMNS, invocations.get(k * per + r));
+              }
+              ps.addBatch();
             }
-            ps.setString(7, inv.args());
-            ps.setString(8, inv.text());
-            ps.setString(9, inv.outcome());
-            ps.setBoolean(10, inv.cached());
-            ps.setLong(11, inv.elapsedUs());
-            ps.setString(12, inv.dataVersion());
-            ps.setString(13, inv.asOf());
-            bindTs(ps, 14, Instant.ofEpochMilli(id.getMostSignificantBits() >>> 16)); // the time in the id
-            ps.addBatch();
+            ps.executeBatch();
           }
-          ps.executeBatch();
+        }
+        if (rest > 0) {
+          try (PreparedStatement ps = c.prepareStatement(insert(rest))) {
+            for (int r = 0; r < rest; r++) {
+              bindRow(ps, r * INSERT_COLUMNS, invocations.get(whole * per + r));
+            }
+            ps.executeUpdate();
+          }
         }
         return null;
       });
     } catch (SQLException e) {
       throw failed("could not write " + invocations.size() + " invocations", e);
     }
+  }
+
+  /** Rows one INSERT statement carries; several rows a statement save per-statement work in the engine. */
+  int rowsPerStatement() {
+    return 1;
+  }
+
+  private static String insert(int rows) {
+    StringBuilder sql = new StringBuilder(INSERT_HEAD);
+    for (int r = 0; r < rows; r++) {
+      sql.append(r == 0 ? "" : ", ").append(INSERT_ROW);
+    }
+    return sql.append(" ON CONFLICT (id) DO NOTHING").toString();
+  }
+
+  private void bindRow(PreparedStatement ps, int at, Invocation inv) throws SQLException {
+    UUID id = IdBounds.parse(inv.id());
+    bindId(ps, at + 1, id);
+    ps.setString(at + 2, inv.keyId());
+    ps.setString(at + 3, inv.run());
+    ps.setString(at + 4, inv.ref());
+    ps.setString(at + 5, inv.tool());
+    if (inv.version() == null) {
+      ps.setNull(at + 6, java.sql.Types.INTEGER);
+    } else {
+      ps.setInt(at + 6, inv.version());
+    }
+    ps.setString(at + 7, inv.args());
+    ps.setString(at + 8, inv.text());
+    ps.setString(at + 9, inv.outcome());
+    ps.setBoolean(at + 10, inv.cached());
+    ps.setLong(at + 11, inv.elapsedUs());
+    ps.setString(at + 12, inv.dataVersion());
+    ps.setString(at + 13, inv.asOf());
+    bindTs(ps, at + 14, Instant.ofEpochMilli(id.getMostSignificantBits() >>> 16)); // the time in the id
   }
 
   @Override

@@ -17,13 +17,17 @@ final class IdBoundsTest {
   @Test
   void prefixEnd_incrementsTheLastCodePoint() {
     assertEquals(Optional.of("plot-12;"), IdBounds.prefixEnd("plot-12:"));
-    assertEquals(Optional.of("\uE000"), IdBounds.prefixEnd("\uD7FF")); // skips the surrogates
+    assertEquals(Optional.of("\uE000"), IdBounds.prefixEnd("\uD7FF")); // skips U+D800..U+DFFF, not scalar values (Unicode 15, section 3.9, from memory)
     assertEquals(Optional.of("b"), IdBounds.prefixEnd("a\uDBFF\uDFFF")); // U+10FFFF has no successor
     assertEquals(Optional.empty(), IdBounds.prefixEnd("\uDBFF\uDFFF"));
     assertEquals(Optional.of("\uD83C\uDF34"), IdBounds.prefixEnd("\uD83C\uDF33")); // U+1F333 -> U+1F334
   }
 
-  /** For random strings s and prefixes p: s starts with p exactly when p <= s < prefixEnd(p) in UTF-8 byte order. */
+  /**
+   * For random strings s and prefixes p: s starts with p exactly when p <= s < prefixEnd(p) in UTF-8
+   * byte order. That byte order is code point order (RFC 3629, section 1, from memory), which is
+   * what SQLite's BINARY collation and PostgreSQL's "C" collation compare.
+   */
   @Test
   void prefixEnd_randomStrings_rangeMatchesStartsWith() {
     Random random = new Random(1732);
@@ -56,6 +60,7 @@ final class IdBoundsTest {
 
   // ---- time bounds ----
 
+  /** The UUIDv7 layout: 48-bit Unix milliseconds, then version 7 (RFC 9562, section 5.7). */
   @Test
   void firstIdAtOrAfter_roundsUpToTheMillisecondAndClamps() {
     Instant t = Instant.parse("2031-05-17T09:30:00Z");

@@ -81,6 +81,7 @@ final class InvocationTest {
         + "\"cached\":true,\"elapsed_us\":42,\"data_version\":\"sha256:0f1e\",\"as_of\":\"2031-05-17\"}", inv.toJson());
   }
 
+  /** Escapes as RFC 8259, section 7 requires; Jackson, a general-purpose parser, reads them back. */
   @Test
   void toJson_controlAndSeparatorCharacters_parseBackToTheSameText() {
     String odd = "a\u0001b\u2028c\\d\te\u00e9\uD83C\uDF33";

@@ -48,7 +48,7 @@ final class LedgerCrashTest {
         }
       }
       assertTrue(acksThisRound > 0, "the child acknowledged nothing in round " + round);
-      assertEquals(137, child.exitValue()); // 128 + SIGKILL (9)
+      assertEquals(137, child.exitValue()); // 128 + signal 9, SIGKILL (POSIX wait status as the JDK reports it, from memory)
       LedgerCheck.Report report = LedgerCheck.check(dir.resolve("ledger.db"), acknowledged);
       assertEquals("ok", report.integrity(), "round " + round);
       assertEquals(List.of(), report.missing(), "round " + round);

@@ -20,7 +20,8 @@ import reckoner.ledger.InvocationQuery.Scope;
 
 /**
  * A full SQLite file, made real with {@code PRAGMA max_page_count} (SQLite then fails writes with
- * SQLITE_FULL, "database or disk is full", as on a full disk): the writer turns unhealthy, commit
+ * SQLITE_FULL, "database or disk is full", as on a full disk; SQLite documentation, "PRAGMA
+ * max_page_count" and "Result and Error Codes", from memory): the writer turns unhealthy, commit
  * appends fail, accepted async records wait, and everything resumes when room returns.
  */
 final class SqliteFullDiskTest {
