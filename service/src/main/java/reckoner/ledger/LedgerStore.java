@@ -1,0 +1,88 @@
+package reckoner.ledger;
+
+import java.io.IOException;
+import java.io.Writer;
+import java.nio.file.Path;
+import java.time.Instant;
+import java.util.List;
+
+/**
+ * Where invocations are kept: an SQLite file in the data dir ({@link #sqlite}), or a PostgreSQL
+ * database that several replicas share ({@link #postgres}). Both create and migrate their schema
+ * when opened. Every method is thread-safe; every failure of the underlying store is a
+ * {@link LedgerUnavailableException} with reason {@code STORE_FAILED}.
+ */
+public interface LedgerStore extends AutoCloseable {
+
+  /**
+   * Opens (creating if needed) the ledger file {@code ledger.db} in {@code dataDir}, in WAL mode,
+   * with every commit synced to the disk.
+   */
+  static LedgerStore sqlite(Path dataDir) {
+    return sqlite(dataDir, true);
+  }
+
+  /**
+   * Opens the ledger file {@code ledger.db} in {@code dataDir}. With {@code syncEveryCommit} a
+   * committed record survives power loss; without it, it survives a crash of the process (the
+   * operating system still has it) but not of the machine, and commits are cheaper.
+   */
+  static LedgerStore sqlite(Path dataDir, boolean syncEveryCommit) {
+    return SqliteLedgerStore.open(dataDir.resolve(SqliteLedgerStore.FILE_NAME),
+        syncEveryCommit ? SqliteLedgerStore.Sync.FULL : SqliteLedgerStore.Sync.NORMAL);
+  }
+
+  /**
+   * Opens the ledger in the PostgreSQL database at {@code jdbcUrl}
+   * ({@code jdbc:postgresql://host:port/db}, user and password as URL parameters or here), with a
+   * pool of at most {@code poolSize} connections.
+   */
+  static LedgerStore postgres(String jdbcUrl, String user, String password, int poolSize) {
+    return PostgresLedgerStore.open(jdbcUrl, user, password, poolSize);
+  }
+
+  /**
+   * Writes {@code invocations} in one transaction: all or none. A record whose id is already
+   * stored is left as it is, so a retried batch never writes a record twice.
+   */
+  void append(List<Invocation> invocations);
+
+  /** One page of {@code query}'s matches, oldest first; at most {@link InvocationQuery#pageSize()}. */
+  InvocationPage query(InvocationQuery query);
+
+  /**
+   * Streams every match of {@code query} (up to its limit, if it has one), oldest first, to
+   * {@code sink}, reading forward in small fetches so memory stays constant. Returns the count.
+   */
+  long forEach(InvocationQuery query, Sink sink) throws IOException;
+
+  /** Writes every match of {@code query} as NDJSON, one {@link Invocation#toJson()} a line. Returns the count. */
+  default long exportNdjson(InvocationQuery query, Writer out) throws IOException {
+    return forEach(query, invocation -> out.append(invocation.toJson()).append('\n'));
+  }
+
+  /** Deletes at most {@code batch} of the oldest records that arrived before {@code cutoff}; returns how many. */
+  int deleteBefore(Instant cutoff, int batch);
+
+  /**
+   * The id of the newest record that is not among the newest {@code keep}: deleting it and all
+   * older ones leaves {@code keep}. Empty when the store holds at most {@code keep}.
+   */
+  java.util.Optional<String> newestBeyond(long keep);
+
+  /** Deletes at most {@code batch} of the oldest records with ids up to and including {@code id}; returns how many. */
+  int deleteThrough(String id, int batch);
+
+  /** Checks that the store takes a write now (a small write in a transaction of its own). */
+  void probe();
+
+  /** Closes the connections. Records already appended stay. */
+  @Override
+  void close();
+
+  /** Receives streamed records. */
+  @FunctionalInterface
+  interface Sink {
+    void accept(Invocation invocation) throws IOException;
+  }
+}

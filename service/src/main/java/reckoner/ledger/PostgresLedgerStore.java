@@ -1,0 +1,157 @@
+package reckoner.ledger;
+
+import com.zaxxer.hikari.HikariConfig;
+import com.zaxxer.hikari.HikariDataSource;
+import java.sql.Connection;
+import java.sql.PreparedStatement;
+import java.sql.ResultSet;
+import java.sql.SQLException;
+import java.sql.Statement;
+import java.time.Instant;
+import java.time.OffsetDateTime;
+import java.time.ZoneOffset;
+import java.util.List;
+import java.util.UUID;
+import javax.sql.DataSource;
+
+/**
+ * The shared ledger: a PostgreSQL database that several service replicas write at once, through a
+ * HikariCP pool. Ids are {@code uuid} (compared byte by byte, so in time order); text columns that
+ * are filtered or ranged use the {@code "C"} collation, so that their order is code point order
+ * whatever the database's locale, as the prefix ranges need. Replicas migrate the schema under an
+ * advisory lock, one at a time.
+ */
+final class PostgresLedgerStore extends JdbcLedgerStore {
+  /** The advisory lock key that serialises migrations: "RECKONER" in ASCII, read as a number. */
+  private static final long MIGRATION_LOCK = 0x5245434b4f4e4552L;
+
+  private final HikariDataSource pool;
+  private final String description;
+
+  private PostgresLedgerStore(HikariDataSource pool, String description) {
+    this.pool = pool;
+    this.description = description;
+  }
+
+  static PostgresLedgerStore open(String jdbcUrl, String user, String password, int poolSize) {
+    if (!jdbcUrl.startsWith("jdbc:postgresql:")) {
+      throw new IllegalArgumentException("a PostgreSQL ledger needs a jdbc:postgresql: URL");
+    }
+    if (poolSize < 2) {
+      throw new IllegalArgumentException("poolSize must be at least 2 (one writer, one reader): " + poolSize);
+    }
+    HikariConfig c = new HikariConfig();
+    c.setPoolName("ledger-postgres");
+    c.setJdbcUrl(jdbcUrl);
+    if (user != null) {
+      c.setUsername(user);
+    }
+    if (password != null) {
+      c.setPassword(password);
+    }
+    c.setMaximumPoolSize(poolSize);
+    c.setMinimumIdle(1);
+    c.setConnectionTimeout(2_000); // an outage shows within seconds, not the default 30
+    c.setValidationTimeout(1_000);
+    c.addDataSourceProperty("reWriteBatchedInserts", "true"); // one multi-row INSERT per batch
+    c.addDataSourceProperty("socketTimeout", "60");
+    c.addDataSourceProperty("tcpKeepAlive", "true");
+    c.addDataSourceProperty("ApplicationName", "reckoner-ledger");
+    HikariDataSource pool = new HikariDataSource(c);
+    String where = jdbcUrl.replaceAll("[?].*", ""); // never log credentials from parameters
+    PostgresLedgerStore store = new PostgresLedgerStore(pool, "postgres ledger " + where);
+    try {
+      store.migrate();
+    } catch (RuntimeException e) {
+      pool.close();
+      throw e;
+    }
+    return store;
+  }
+
+  @Override
+  <T> T inWriteTransaction(Work<T> work) throws SQLException {
+    try (Connection c = pool.getConnection()) {
+      c.setAutoCommit(false);
+      try {
+        T result = work.run(c);
+        c.commit();
+        return result;
+      } catch (SQLException | RuntimeException e) {
+        try {
+          c.rollback();
+        } catch (SQLException ignored) {
+          // The connection may be gone; the pool drops broken connections.
+        }
+        throw e;
+      }
+    }
+  }
+
+  @Override
+  DataSource readPool() {
+    return pool;
+  }
+
+  @Override
+  void beginStreaming(Connection c) throws SQLException {
+    c.setAutoCommit(false); // the driver fetches in pieces only inside a transaction
+    c.setReadOnly(true);
+  }
+
+  @Override
+  void endStreaming(Connection c) throws SQLException {
+    c.rollback();
+  }
+
+  @Override
+  void lockForMigration(Connection c) throws SQLException {
+    try (Statement st = c.createStatement()) {
+      st.execute("SELECT pg_advisory_xact_lock(" + MIGRATION_LOCK + ")");
+    }
+  }
+
+  @Override
+  void bindId(PreparedStatement ps, int index, UUID id) throws SQLException {
+    ps.setObject(index, id);
+  }
+
+  @Override
+  UUID readId(ResultSet rs, int index) throws SQLException {
+    return rs.getObject(index, UUID.class);
+  }
+
+  @Override
+  void bindTs(PreparedStatement ps, int index, Instant ts) throws SQLException {
+    ps.setObject(index, OffsetDateTime.ofInstant(ts, ZoneOffset.UTC));
+  }
+
+  @Override
+  List<List<String>> migrations() {
+    return List.of(List.of(
+        "CREATE TABLE invocations ("
+            + " id uuid PRIMARY KEY,"
+            + " ts timestamptz NOT NULL," // the time in the id, for readers of the table
+            + " key_id text COLLATE \"C\" NOT NULL, run text COLLATE \"C\", ref text COLLATE \"C\","
+            + " tool text COLLATE \"C\" NOT NULL, version integer, args text, text text NOT NULL,"
+            + " outcome text COLLATE \"C\" NOT NULL, cached boolean NOT NULL, elapsed_us bigint NOT NULL,"
+            + " data_version text, as_of text)",
+        "CREATE INDEX invocations_by_key ON invocations (key_id, id)",
+        "CREATE INDEX invocations_by_run ON invocations (run, id) WHERE run IS NOT NULL",
+        "CREATE INDEX invocations_by_tool ON invocations (tool, id)",
+        "CREATE INDEX invocations_by_error ON invocations (outcome, id) WHERE outcome <> 'ok'",
+        "CREATE INDEX invocations_errors ON invocations (id) WHERE outcome <> 'ok'",
+        "CREATE INDEX invocations_by_ref ON invocations (ref, id) WHERE ref IS NOT NULL",
+        "CREATE TABLE ledger_probe (n integer PRIMARY KEY, pad bytea)"));
+  }
+
+  @Override
+  String name() {
+    return description;
+  }
+
+  @Override
+  public void close() {
+    pool.close();
+  }
+}

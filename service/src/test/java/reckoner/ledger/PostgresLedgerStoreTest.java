@@ -1,0 +1,41 @@
+package reckoner.ledger;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
+
+import java.sql.Connection;
+import java.sql.DriverManager;
+import java.sql.Statement;
+import org.junit.jupiter.api.Test;
+
+/**
+ * The store contract on PostgreSQL. Needs {@code RECKONER_TEST_PG_URL} (see {@code .ci/postgres.sh});
+ * without it these tests are skipped. Each test gets a schema of its own.
+ */
+final class PostgresLedgerStoreTest extends LedgerStoreContract {
+  static final String URL = System.getenv("RECKONER_TEST_PG_URL");
+  private static int counter;
+
+  /** A fresh, empty schema in the test database; returns its URL. */
+  static String freshSchemaUrl(String prefix) throws Exception {
+    assumeTrue(URL != null && !URL.isEmpty(), "RECKONER_TEST_PG_URL is not set: PostgreSQL tests skipped");
+    String schema = prefix + "_" + ProcessHandle.current().pid() + "_" + (++counter);
+    try (Connection c = DriverManager.getConnection(URL); Statement st = c.createStatement()) {
+      st.execute("DROP SCHEMA IF EXISTS " + schema + " CASCADE");
+      st.execute("CREATE SCHEMA " + schema);
+    }
+    return URL + (URL.contains("?") ? "&" : "?") + "currentSchema=" + schema;
+  }
+
+  @Override
+  LedgerStore openEmpty() throws Exception {
+    return LedgerStore.postgres(freshSchemaUrl("ledger_test"), null, null, 4);
+  }
+
+  @Test
+  void open_twice_migratesOnceToVersion1() {
+    assertEquals(1, ((PostgresLedgerStore) store).schemaVersion());
+    ((PostgresLedgerStore) store).migrate();
+    assertEquals(1, ((PostgresLedgerStore) store).schemaVersion());
+  }
+}

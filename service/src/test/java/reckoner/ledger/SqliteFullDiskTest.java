@@ -1,0 +1,73 @@
+package reckoner.ledger;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertInstanceOf;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+import static reckoner.ledger.Fixtures.HERON;
+import static reckoner.ledger.Fixtures.call;
+
+import java.nio.file.Path;
+import java.time.Duration;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.TimeUnit;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import reckoner.ledger.InvocationQuery.Scope;
+
+/**
+ * A full SQLite file, made real with {@code PRAGMA max_page_count} (SQLite then fails writes with
+ * SQLITE_FULL, "database or disk is full", as on a full disk; SQLite documentation, "PRAGMA
+ * max_page_count" and "Result and Error Codes", from memory): the writer turns unhealthy, commit
+ * appends fail, accepted async records wait, and everything resumes when room returns.
+ */
+final class SqliteFullDiskTest {
+  @TempDir Path dir;
+
+  @Test
+  void fullFile_turnsWriterUnhealthyAndResumesWhenRoomReturns() throws Exception {
+    SqliteLedgerStore store = (SqliteLedgerStore) LedgerStore.sqlite(dir);
+    LedgerWriter writer = LedgerWriter.start(store, LedgerWriter.Settings.defaults()
+        .withBackoff(Duration.ofMillis(20), Duration.ofMillis(100)), LedgerStats.CommitListener.none());
+    try {
+      writer.append(call(0, 0, HERON).build()).get(10, TimeUnit.SECONDS);
+      store.limitPages(store.pageCount());
+      List<Invocation> big = new ArrayList<>();
+      for (int i = 1; i <= 200; i++) {
+        big.add(call(i, 0, HERON).text("x".repeat(5000)).build()); // each needs a page of its own
+      }
+      ExecutionException e = assertThrows(ExecutionException.class,
+          () -> writer.append(big.get(0)).get(10, TimeUnit.SECONDS));
+      LedgerUnavailableException cause = assertInstanceOf(LedgerUnavailableException.class, e.getCause());
+      assertEquals(LedgerUnavailableException.Reason.STORE_FAILED, cause.reason());
+      assertTrue(cause.getMessage().contains("full"), cause.getMessage());
+      assertFalse(writer.isHealthy());
+      for (Invocation inv : big.subList(1, big.size())) {
+        assertTrue(writer.offer(inv)); // async: accepted, held through the outage
+      }
+      long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(5);
+      while (writer.writeFailures() < 3 && System.nanoTime() < deadline) {
+        Thread.sleep(10);
+      }
+      assertFalse(writer.isHealthy());
+      store.limitPages(0);
+      deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(20);
+      while (writer.recordsWritten() < 200 && System.nanoTime() < deadline) {
+        Thread.sleep(10);
+      }
+      assertTrue(writer.isHealthy());
+      assertEquals(200, writer.recordsWritten()); // the first record and the 199 async ones; the refused one is not
+      assertEquals(200, store.forEach(InvocationQuery.of(Scope.all()), inv -> {}));
+      writer.append(call(999, 0, HERON).build()).get(10, TimeUnit.SECONDS);
+    } finally {
+      writer.close();
+      store.close();
+    }
+    LedgerCheck.Report report = LedgerCheck.check(dir.resolve("ledger.db"), List.of());
+    assertEquals("ok", report.integrity());
+    assertEquals(201, report.invocations());
+  }
+}
