@@ -3,10 +3,17 @@ package reckoner;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Clock;
+import java.time.Duration;
 import java.util.ArrayList;
 import java.util.List;
 import reckoner.call.AnswerCache;
+import reckoner.call.InvocationSink;
 import reckoner.call.Invoker;
+import reckoner.ledger.LedgerSink;
+import reckoner.ledger.LedgerStats;
+import reckoner.ledger.LedgerStore;
+import reckoner.ledger.LedgerWriter;
+import reckoner.ledger.Retention;
 import reckoner.config.ConfigException;
 import reckoner.config.ServiceConfig;
 import reckoner.facts.FactLoadException;
@@ -22,9 +29,18 @@ import tools.jackson.databind.json.JsonMapper;
  * The call engine that the HTTP service and the offline command line share: the served tools with
  * their specs, the fact store, the answer cache, the invoker and the configured markup. Wiring only.
  */
-record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup markup, FactStore facts) {
-  static Engine build(ServiceConfig config, Clock clock, JsonMapper json) {
+record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup markup, FactStore facts,
+    LedgerStore ledger, LedgerWriter writer, Retention retention) implements AutoCloseable {
+  static Engine build(ServiceConfig config, Clock clock, JsonMapper json, LedgerStats.CommitListener commits) {
     FactStore facts = openFacts(config);
+    LedgerStore ledger = openLedger(config);
+    LedgerWriter writer = LedgerWriter.start(ledger, LedgerWriter.Settings.defaults().withQueueCapacity(config.ledgerQueue()),
+        commits);
+    Retention.Policy policy = new Retention.Policy(config.retentionDays() > 0 ? Duration.ofDays(config.retentionDays()) : null,
+        config.retentionMaxRecords());
+    Retention retention = policy.keepsAll() ? null : Retention.start(ledger, policy, clock, Duration.ofMinutes(1));
+    InvocationSink sink = new LedgerSink(writer,
+        LedgerSink.Durability.parse(config.durability()).orElseThrow(() -> new ConfigException("durability: " + config.durability())));
     ToolCatalog catalog = ToolCatalog.of(ToolRegistry.of(Tools.standard(facts)), new SpecLoader(json));
     AnswerCache cache = AnswerCache.ofMaximumSize(config.cacheSize());
     Markup markup;
@@ -33,7 +49,40 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
     } catch (IllegalArgumentException e) {
       throw new ConfigException("markup-open, markup-separator, markup-close: " + e.getMessage());
     }
-    return new Engine(catalog, cache, new Invoker(catalog, clock, cache), markup, facts);
+    return new Engine(catalog, cache, new Invoker(catalog, clock, cache, sink), markup, facts, ledger, writer, retention);
+  }
+
+  /** The ledger store the settings name, its schema created or migrated. */
+  static LedgerStore openLedger(ServiceConfig config) {
+    try {
+      if (config.ledger().equals("postgresql")) {
+        return LedgerStore.postgres(config.ledgerUrl(), blankToNull(config.ledgerUser()), blankToNull(config.ledgerPassword()),
+            config.ledgerPoolSize());
+      }
+      Files.createDirectories(config.dataDir());
+      return LedgerStore.sqlite(config.dataDir(), config.ledgerSync());
+    } catch (java.io.IOException | RuntimeException e) {
+      throw new ConfigException("the ledger (" + config.ledger() + ") cannot be opened: " + e.getMessage());
+    }
+  }
+
+  private static String blankToNull(String s) {
+    return s == null || s.isBlank() ? null : s;
+  }
+
+  /** Whether calls can be recorded now: readiness. */
+  boolean isReady() {
+    return !catalog.all().isEmpty() && writer.isHealthy();
+  }
+
+  /** Stops retention, drains the ledger queue (every accepted record is written), closes the store. */
+  @Override
+  public void close() {
+    if (retention != null) {
+      retention.close();
+    }
+    writer.close();
+    ledger.close();
   }
 
   /**

@@ -66,6 +66,15 @@ public final class Main implements Runnable {
     @Option(names = "--facts-default-set", description = "The fact set read when a call names none (default demo).")
     String factsDefaultSet;
 
+    @Option(names = "--ledger", description = "Where invocations are kept: sqlite (default, <data dir>/ledger.db) or postgresql.")
+    String ledger;
+
+    @Option(names = "--ledger-url", description = "JDBC URL of the PostgreSQL ledger, e.g. jdbc:postgresql://127.0.0.1:5432/reckoner.")
+    String ledgerUrl;
+
+    @Option(names = "--durability", description = "commit (default: an answer leaves after its record is committed) or async.")
+    String durability;
+
     @Option(names = "--config", description = "A properties file of settings (same names as the flags, without --).")
     Path configFile;
 
@@ -88,6 +97,9 @@ public final class Main implements Runnable {
         put("facts-dirs", String.join(",", factsDirs.stream().map(Path::toString).toList()));
       }
       put("facts-demo", factsDemo);
+      put("ledger", ledger);
+      put("ledger-url", ledgerUrl);
+      put("durability", durability);
       put("facts-default-set", factsDefaultSet);
       Path file = configFile != null ? configFile
           : System.getenv("RECKONER_CONFIG") != null ? Path.of(System.getenv("RECKONER_CONFIG")) : null;
@@ -177,7 +189,7 @@ public final class Main implements Runnable {
       ServiceConfig config;
       try {
         config = settings.resolve();
-        engine = Engine.build(config, Clock.systemUTC(), Json.newMapper());
+        engine = Engine.build(config, Clock.systemUTC(), Json.newMapper(), reckoner.ledger.LedgerStats.CommitListener.none());
       } catch (ConfigException e) {
         System.err.println("reckoner: " + e.getMessage());
         return 2;
@@ -189,9 +201,10 @@ public final class Main implements Runnable {
         FillCommand.Summary summary = new FillCommand(new Filler(engine.invoker()), Json.newMapper(), calls)
             .run(input, output, engine.markup(), policy, run, err, show);
         err.print(summary.describe());
-        return 0;
+        return summary.unrecordedDocuments() == 0 ? 0 : 1;
       } finally {
         calls.shutdown();
+        engine.close(); // every record written before exit
       }
     }
   }

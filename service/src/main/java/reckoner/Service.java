@@ -8,7 +8,10 @@ import io.micrometer.core.instrument.binder.system.ProcessorMetrics;
 import io.micrometer.core.instrument.binder.system.UptimeMetrics;
 import io.micrometer.prometheusmetrics.PrometheusConfig;
 import io.micrometer.prometheusmetrics.PrometheusMeterRegistry;
+import io.micrometer.core.instrument.DistributionSummary;
 import io.micrometer.core.instrument.FunctionCounter;
+import io.micrometer.core.instrument.Gauge;
+import io.micrometer.core.instrument.Timer;
 import io.micrometer.core.instrument.binder.cache.CaffeineCacheMetrics;
 import java.time.Clock;
 import java.util.concurrent.ExecutorService;
@@ -17,6 +20,7 @@ import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import reckoner.config.ServiceConfig;
 import reckoner.facts.FactsWatcher;
+import reckoner.ledger.LedgerWriter;
 import reckoner.http.HttpApi;
 import reckoner.spec.Json;
 import reckoner.spec.OpenApi;
@@ -35,20 +39,29 @@ public final class Service implements AutoCloseable {
   private final Javalin http;
   private final ExecutorService calls;
   private final FactsWatcher watcher; // null when polling is off
+  private final Engine engine;
 
-  private Service(Javalin http, ExecutorService calls, FactsWatcher watcher) {
+  private Service(Javalin http, ExecutorService calls, FactsWatcher watcher, Engine engine) {
     this.http = http;
     this.calls = calls;
     this.watcher = watcher;
+    this.engine = engine;
   }
 
   public static Service start(ServiceConfig config, Clock clock) {
     JsonMapper json = Json.newMapper();
-    Engine engine = Engine.build(config, clock, json);
+    PrometheusMeterRegistry metrics = new PrometheusMeterRegistry(PrometheusConfig.DEFAULT);
+    Timer commitTime = Timer.builder("reckoner.ledger.commit").description("Time to commit one group of invocations")
+        .publishPercentileHistogram().register(metrics);
+    DistributionSummary commitSize = DistributionSummary.builder("reckoner.ledger.commit.records")
+        .description("Invocations per group commit").publishPercentileHistogram().register(metrics);
+    Engine engine = Engine.build(config, clock, json, (records, nanos) -> {
+      commitTime.record(nanos, java.util.concurrent.TimeUnit.NANOSECONDS);
+      commitSize.record(records);
+    });
     ToolCatalog catalog = engine.catalog();
     ExecutorService calls = Executors.newFixedThreadPool(Engine.callThreads(config), daemonThreads("reckoner-call-"));
 
-    PrometheusMeterRegistry metrics = new PrometheusMeterRegistry(PrometheusConfig.DEFAULT);
     new JvmMemoryMetrics().bindTo(metrics);
     new JvmGcMetrics().bindTo(metrics);
     new JvmThreadMetrics().bindTo(metrics);
@@ -59,12 +72,23 @@ public final class Service implements AutoCloseable {
         .description("Fact reloads applied").tag("result", "applied").register(metrics);
     FunctionCounter.builder("reckoner.facts.reloads", engine.facts(), f -> f.reloadFailures())
         .description("Fact reloads refused (a bad file; the old data kept serving)").tag("result", "refused").register(metrics);
+    LedgerWriter w = engine.writer();
+    Gauge.builder("reckoner.ledger.queue.depth", w, LedgerWriter::queueDepth).description("Invocations waiting to be committed")
+        .register(metrics);
+    Gauge.builder("reckoner.ledger.healthy", w, x -> x.isHealthy() ? 1 : 0).description("1 while the ledger takes writes")
+        .register(metrics);
+    FunctionCounter.builder("reckoner.ledger.records.written", w, LedgerWriter::recordsWritten)
+        .description("Invocations committed").register(metrics);
+    FunctionCounter.builder("reckoner.ledger.write.failures", w, LedgerWriter::writeFailures)
+        .description("Ledger write attempts that failed").register(metrics);
+    FunctionCounter.builder("reckoner.ledger.records.refused", w, LedgerWriter::recordsRefused)
+        .description("Invocations refused (queue full, store down, closed); their calls were answered 503").register(metrics);
     FactsWatcher watcher = config.factsPollMillis() > 0
         ? FactsWatcher.over(engine.facts(), java.time.Duration.ofMillis(config.factsPollMillis())).start()
         : null;
 
     HttpApi.Settings settings = new HttpApi.Settings(config.maxBodyBytes(), config.maxBatchBytes(), engine.markup(),
-        OpenApi.assemble(catalog, json, VERSION), () -> !catalog.all().isEmpty(), calls, engine.facts());
+        OpenApi.assemble(catalog, json, VERSION), engine::isReady, calls, engine.facts(), engine.ledger());
     Javalin http = HttpApi.create(engine.invoker(), metrics, json, settings);
     http.start(config.host(), config.port());
     LOG.info("serving {} tool versions on http://{}:{} (data dir {})", catalog.all().size(), config.host(), http.port(),
@@ -74,7 +98,7 @@ public final class Service implements AutoCloseable {
     } else {
       LOG.info("no API keys configured: listening on loopback only");
     }
-    return new Service(http, calls, watcher);
+    return new Service(http, calls, watcher, engine);
   }
 
   static java.util.concurrent.ThreadFactory daemonThreads(String prefix) {
@@ -96,7 +120,8 @@ public final class Service implements AutoCloseable {
     if (watcher != null) {
       watcher.close();
     }
-    http.stop();
+    http.stop(); // no new calls; calls in flight finish
     calls.shutdown();
+    engine.close(); // drains the ledger queue before returning
   }
 }

@@ -37,17 +37,40 @@ public final class Invoker {
   private final CallContext context;
   private final InvocationIds ids;
   private final AnswerCache cache;
+  private final InvocationSink sink;
 
-  /** An invoker without an answer cache. */
+  /** An invoker without an answer cache or a ledger. */
   public Invoker(ToolCatalog catalog, Clock clock) {
     this(catalog, clock, AnswerCache.ofMaximumSize(0));
   }
 
+  /** An invoker with an answer cache and no ledger. */
   public Invoker(ToolCatalog catalog, Clock clock, AnswerCache cache) {
+    this(catalog, clock, cache, InvocationSink.none());
+  }
+
+  public Invoker(ToolCatalog catalog, Clock clock, AnswerCache cache, InvocationSink sink) {
     this.catalog = catalog;
     this.context = new CallContext(clock);
     this.ids = new InvocationIds(clock);
     this.cache = cache;
+    this.sink = sink;
+  }
+
+  /**
+   * Runs one call and hands its record to the ledger. Every call — ok, error or cache hit —
+   * becomes one invocation; the caller acknowledges it only once {@link Recorded#durable()} completes.
+   */
+  public Recorded call(CallRequest request) {
+    Outcome outcome = invoke(request);
+    return new Recorded(outcome, sink.record(request, outcome));
+  }
+
+  /** Runs one call given in its free-text form and hands its record to the ledger. */
+  public Recorded callText(String tool, java.util.OptionalInt version, String text, String asOf, String run, String ref) {
+    tools.jackson.databind.node.ObjectNode args = tools.jackson.databind.node.JsonNodeFactory.instance.objectNode();
+    args.put(Arguments.TEXT, text);
+    return call(new CallRequest(tool, version, args, asOf, run, ref));
   }
 
   public ToolCatalog catalog() {
@@ -61,7 +84,7 @@ public final class Invoker {
     return invoke(new CallRequest(tool, version, args, asOf, run, ref));
   }
 
-  /** Runs one call. Never throws for anything a caller sent. */
+  /** Runs one call without recording it. Never throws for anything a caller sent. */
   public Outcome invoke(CallRequest request) {
     long start = System.nanoTime();
     String id = ids.next().toString();

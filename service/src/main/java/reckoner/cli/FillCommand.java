@@ -41,7 +41,7 @@ public final class FillCommand {
 
   /** What a run came to, for the closing summary. */
   public record Summary(long documents, long badLines, long calls, long ok, Map<String, Long> errorsByCode,
-      long cacheHits, long elapsedNanos) {
+      long cacheHits, long unrecordedDocuments, long elapsedNanos) {
     public double cacheHitRatio() {
       return calls == 0 ? 0 : cacheHits / (double) calls;
     }
@@ -54,6 +54,9 @@ public final class FillCommand {
       sb.append(String.format(Locale.ROOT, "calls: %d, ok: %d, errors: %d%n", calls, ok, calls - ok));
       errorsByCode.forEach((code, n) -> sb.append(String.format(Locale.ROOT, "  %-22s %d%n", code, n)));
       sb.append(String.format(Locale.ROOT, "cache hit ratio: %.3f%n", cacheHitRatio()));
+      if (unrecordedDocuments > 0) {
+        sb.append(String.format(Locale.ROOT, "NOT RECORDED in the ledger: the calls of %d documents%n", unrecordedDocuments));
+      }
       sb.append(String.format(Locale.ROOT, "elapsed: %.2f s (%.0f calls/s)%n", seconds, calls / Math.max(seconds, 1e-9)));
       return sb.toString();
     }
@@ -74,11 +77,11 @@ public final class FillCommand {
       boolean showProgress) throws IOException, InterruptedException {
     Progress progress = new Progress(progressOut, Files.size(input), showProgress, System::nanoTime);
     Counters counters = new Counters();
-    BlockingQueue<Future<byte[]>> window = new ArrayBlockingQueue<>(WINDOW);
-    CompletableFuture<byte[]> end = CompletableFuture.completedFuture(null);
+    BlockingQueue<Future<Done>> window = new ArrayBlockingQueue<>(WINDOW);
+    CompletableFuture<Done> end = CompletableFuture.completedFuture(null);
     try (InputStream in = Files.newInputStream(input);
         OutputStream out = new BufferedOutputStream(Files.newOutputStream(output), 1 << 16)) {
-      Thread writer = new Thread(() -> write(window, end, out), "reckoner-fill-writer");
+      Thread writer = new Thread(() -> write(window, end, out, counters), "reckoner-fill-writer");
       writer.start();
       try {
         LineReader lines = new LineReader(in, MAX_DOCUMENT_BYTES);
@@ -99,7 +102,10 @@ public final class FillCommand {
     return counters.summary(progress.elapsedNanos());
   }
 
-  private byte[] fillLine(LineReader.Line line, Markup markup, OnError onError, String run, Counters counters,
+  /** A filled line and the stage of its calls' records; the writer waits for it before writing. */
+  private record Done(byte[] line, CompletableFuture<Void> durable) {}
+
+  private Done fillLine(LineReader.Line line, Markup markup, OnError onError, String run, Counters counters,
       Progress progress) {
     ObjectNode result = json.createObjectNode();
     JsonNode doc;
@@ -115,7 +121,7 @@ public final class FillCommand {
       }
       result.put("error", "each line must be a JSON object with \"document\", a string");
       progress.done(0);
-      return json.writeValueAsBytes(result);
+      return new Done(json.writeValueAsBytes(result), CompletableFuture.completedFuture(null));
     }
     String ref = doc.path("id").isString() || doc.path("id").isIntegralNumber() ? "doc-" + doc.get("id").asString() : null;
     if (ref != null && (ref.length() > 180 || !ref.chars().allMatch(c -> c >= 0x20 && c < 0x7f))) {
@@ -142,17 +148,23 @@ public final class FillCommand {
     }
     counters.documents.incrementAndGet();
     progress.done(filled.calls().size());
-    return json.writeValueAsBytes(result);
+    return new Done(json.writeValueAsBytes(result), filled.durable());
   }
 
-  private static void write(BlockingQueue<Future<byte[]>> window, Future<byte[]> end, OutputStream out) {
+  private static void write(BlockingQueue<Future<Done>> window, Future<Done> end, OutputStream out, Counters counters) {
     try {
       while (true) {
-        Future<byte[]> next = window.take();
+        Future<Done> next = window.take();
         if (next == end) {
           return;
         }
-        out.write(next.get());
+        Done done = next.get();
+        try {
+          done.durable().join(); // the ledger holds every call of a line before the line is written
+        } catch (java.util.concurrent.CompletionException e) {
+          counters.unrecorded.incrementAndGet();
+        }
+        out.write(done.line());
         out.write('\n');
       }
     } catch (InterruptedException e) {
@@ -168,6 +180,7 @@ public final class FillCommand {
     final AtomicLong calls = new AtomicLong();
     final AtomicLong ok = new AtomicLong();
     final AtomicLong cacheHits = new AtomicLong();
+    final AtomicLong unrecorded = new AtomicLong();
     final Map<String, AtomicLong> errors = new java.util.concurrent.ConcurrentHashMap<>();
 
     void count(Filler.Spliced c) {
@@ -185,7 +198,8 @@ public final class FillCommand {
     Summary summary(long elapsed) {
       Map<String, Long> byCode = new TreeMap<>();
       errors.forEach((k, v) -> byCode.put(k, v.get()));
-      return new Summary(documents.get(), badLines.get(), calls.get(), ok.get(), byCode, cacheHits.get(), elapsed);
+      return new Summary(documents.get(), badLines.get(), calls.get(), ok.get(), byCode, cacheHits.get(), unrecorded.get(),
+          elapsed);
     }
   }
 }

@@ -36,10 +36,22 @@ import java.util.TreeSet;
  * @param factsDemo whether the shipped demo fact sets are served too
  * @param factsDefaultSet the fact set a call without {@code set} reads
  * @param factsPollMillis how often fact files are checked for changes (0: only on an admin reload)
+ * @param ledger where invocations are kept: {@code sqlite} (a file in the data dir) or {@code postgresql}
+ * @param ledgerUrl the JDBC URL of the PostgreSQL ledger
+ * @param ledgerUser the PostgreSQL user (may be empty: from the URL)
+ * @param ledgerPassword the PostgreSQL password (may be empty: from the URL)
+ * @param ledgerPoolSize PostgreSQL connections at most
+ * @param ledgerSync whether SQLite syncs every commit to the disk (survives power loss) or not (survives a crash)
+ * @param durability {@code commit} (an answer leaves after its record is committed) or {@code async}
+ * @param ledgerQueue records queued for the ledger writer at most
+ * @param retentionDays records older than this many days are deleted (0: kept)
+ * @param retentionMaxRecords the oldest records beyond this count are deleted (0: no limit)
  */
 public record ServiceConfig(String host, int port, Path dataDir, long maxBodyBytes, boolean openAccess,
     long maxBatchBytes, long cacheSize, int callThreads, String markupOpen, String markupSeparator, String markupClose,
-    List<Path> factsDirs, boolean factsDemo, String factsDefaultSet, long factsPollMillis) {
+    List<Path> factsDirs, boolean factsDemo, String factsDefaultSet, long factsPollMillis,
+    String ledger, String ledgerUrl, String ledgerUser, String ledgerPassword, int ledgerPoolSize, boolean ledgerSync,
+    String durability, int ledgerQueue, long retentionDays, long retentionMaxRecords) {
   /** Every setting with its default. The README's settings table lists the same. */
   public static final Map<String, String> DEFAULTS = defaults();
 
@@ -62,6 +74,19 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     factsDirs = List.copyOf(factsDirs);
     if (factsPollMillis < 0) {
       throw new ConfigException("facts-poll-ms must not be negative but was " + factsPollMillis);
+    }
+    if (!ledger.equals("sqlite") && !ledger.equals("postgresql")) {
+      throw new ConfigException("ledger must be sqlite or postgresql but was '" + ledger + "'");
+    }
+    if (ledger.equals("postgresql") && !ledgerUrl.startsWith("jdbc:postgresql://")) {
+      throw new ConfigException("ledger-url must be a jdbc:postgresql:// URL when ledger=postgresql but was '" + ledgerUrl + "'");
+    }
+    if (!durability.equals("commit") && !durability.equals("async")) {
+      throw new ConfigException("durability must be commit or async but was '" + durability + "'");
+    }
+    if (ledgerPoolSize < 1 || ledgerQueue < 1 || retentionDays < 0 || retentionMaxRecords < 0) {
+      throw new ConfigException("ledger-pool-size and ledger-queue must be positive, retention-days and "
+          + "retention-max-records not negative");
     }
     if (!openAccess && !isLoopback(host)) {
       throw new ConfigException("refusing to listen on " + host + " without API keys: use a loopback host "
@@ -86,6 +111,16 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     d.put("facts-demo", "true");
     d.put("facts-default-set", "demo");
     d.put("facts-poll-ms", "2000");
+    d.put("ledger", "sqlite");
+    d.put("ledger-url", "");
+    d.put("ledger-user", "");
+    d.put("ledger-password", "");
+    d.put("ledger-pool-size", "8");
+    d.put("ledger-sync", "true");
+    d.put("durability", "commit");
+    d.put("ledger-queue", "65536");
+    d.put("retention-days", "0");
+    d.put("retention-max-records", "0");
     return java.util.Collections.unmodifiableMap(d);
   }
 
@@ -113,7 +148,17 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
         paths(s.get("facts-dirs")),
         bool(s, "facts-demo"),
         s.get("facts-default-set").trim(),
-        longValue(s, "facts-poll-ms"));
+        longValue(s, "facts-poll-ms"),
+        s.get("ledger").trim(),
+        s.get("ledger-url").trim(),
+        s.get("ledger-user"),
+        s.get("ledger-password"),
+        integer(s, "ledger-pool-size"),
+        bool(s, "ledger-sync"),
+        s.get("durability").trim(),
+        integer(s, "ledger-queue"),
+        longValue(s, "retention-days"),
+        longValue(s, "retention-max-records"));
   }
 
   /**

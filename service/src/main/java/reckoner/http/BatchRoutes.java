@@ -16,7 +16,7 @@ import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Future;
 import reckoner.call.CallRequest;
 import reckoner.call.Invoker;
-import reckoner.call.Outcome;
+import reckoner.call.Recorded;
 import reckoner.io.LineReader;
 import reckoner.tool.ErrorCode;
 import reckoner.tool.ToolError;
@@ -81,14 +81,14 @@ final class BatchRoutes {
       throw new ApiException(ErrorCode.LIMIT_EXCEEDED, "a JSON batch holds at most " + MAX_JSON_CALLS + " calls but had "
           + calls.size() + "; stream larger batches as application/x-ndjson");
     }
-    List<Future<ObjectNode>> results = new ArrayList<>(calls.size());
+    List<Future<Pending>> results = new ArrayList<>(calls.size());
     for (JsonNode item : calls) {
       results.add(executor.submit(() -> runItem(item, run, asOf, 0)));
     }
     ObjectNode out = responses.object();
     ArrayNode array = out.putArray("results");
-    for (Future<ObjectNode> f : results) {
-      array.add(f.get());
+    for (Future<Pending> f : results) {
+      array.add(f.get().settled());
     }
     responses.json(ctx, 200, out);
   }
@@ -96,8 +96,8 @@ final class BatchRoutes {
   private void ndjson(Context ctx, String run, String asOf) throws IOException, InterruptedException {
     ctx.status(200).contentType(MediaTypes.NDJSON);
     OutputStream out = new BufferedOutputStream(ctx.outputStream(), 1 << 16);
-    BlockingQueue<Future<byte[]>> window = new ArrayBlockingQueue<>(WINDOW);
-    CompletableFuture<byte[]> end = CompletableFuture.completedFuture(null);
+    BlockingQueue<Future<Pending>> window = new ArrayBlockingQueue<>(WINDOW);
+    CompletableFuture<Pending> end = CompletableFuture.completedFuture(null);
     Thread writer = new Thread(() -> writeInOrder(window, end, out), "reckoner-batch-writer");
     writer.start();
     try (InputStream in = ctx.req().getInputStream()) {
@@ -107,7 +107,7 @@ final class BatchRoutes {
           continue;
         }
         LineReader.Line current = line;
-        window.put(executor.submit(() -> responses.json().writeValueAsBytes(runLine(current, run, asOf))));
+        window.put(executor.submit(() -> runLine(current, run, asOf)));
       }
     } finally {
       window.put(end);
@@ -120,11 +120,11 @@ final class BatchRoutes {
    * see answers early. If the client goes away, keeps taking results (unwritten) until the end
    * marker, so the reading side is never blocked on a full window.
    */
-  private void writeInOrder(BlockingQueue<Future<byte[]>> window, Future<byte[]> end, OutputStream out) {
+  private void writeInOrder(BlockingQueue<Future<Pending>> window, Future<Pending> end, OutputStream out) {
     boolean broken = false;
     try {
       while (true) {
-        Future<byte[]> next = window.peek();
+        Future<Pending> next = window.peek();
         if (!broken && (next == null || !next.isDone())) {
           broken = !flush(out);
         }
@@ -132,7 +132,7 @@ final class BatchRoutes {
         if (next == end) {
           break;
         }
-        byte[] line = next.get();
+        byte[] line = responses.json().writeValueAsBytes(next.get().settled()); // waits for the record's commit
         if (!broken) {
           try {
             out.write(line);
@@ -161,30 +161,52 @@ final class BatchRoutes {
     }
   }
 
-  private ObjectNode runLine(LineReader.Line line, String run, String asOf) {
+  /**
+   * One call's result line and the stage of its record. {@link #settled()} waits for the record:
+   * a line whose call the ledger could not hold becomes an {@code unavailable} error line, so no
+   * answer is acknowledged without its invocation.
+   */
+  private final class Pending {
+    private final ObjectNode result;
+    private final JsonNode id;
+    private final CompletableFuture<Void> durable;
+
+    Pending(ObjectNode result, JsonNode id, CompletableFuture<Void> durable) {
+      this.result = result;
+      this.id = id;
+      this.durable = durable;
+    }
+
+    ObjectNode settled() {
+      ApiException unrecorded = durable == null ? null : Durable.failure(durable);
+      return unrecorded == null ? result : Outcomes.refused(responses.object(), id, unrecorded.error(), 0);
+    }
+  }
+
+  private Pending runLine(LineReader.Line line, String run, String asOf) {
     if (line.tooLong()) {
-      return Outcomes.refused(responses.object(), null, ToolError.of(ErrorCode.PAYLOAD_TOO_LARGE,
-          "line " + line.number() + " is longer than " + bodies.limit() + " bytes"), line.number());
+      return new Pending(Outcomes.refused(responses.object(), null, ToolError.of(ErrorCode.PAYLOAD_TOO_LARGE,
+          "line " + line.number() + " is longer than " + bodies.limit() + " bytes"), line.number()), null, null);
     }
     JsonNode item;
     try {
       item = responses.json().readTree(line.bytes());
     } catch (JacksonException e) {
-      return Outcomes.refused(responses.object(), null, ToolError.of(ErrorCode.INVALID_ARGUMENT,
-          "line " + line.number() + " is not valid JSON: " + Bodies.describe(e)), line.number());
+      return new Pending(Outcomes.refused(responses.object(), null, ToolError.of(ErrorCode.INVALID_ARGUMENT,
+          "line " + line.number() + " is not valid JSON: " + Bodies.describe(e)), line.number()), null, null);
     }
     return runItem(item, run, asOf, line.number());
   }
 
-  private ObjectNode runItem(JsonNode item, String run, String asOf, long lineNumber) {
+  private Pending runItem(JsonNode item, String run, String asOf, long lineNumber) {
     JsonNode id = item != null && item.isObject() ? item.get("id") : null;
     try {
       CallRequest request = request(item, run, asOf);
-      Outcome outcome = invoker.invoke(request);
-      metrics.record(outcome);
-      return Outcomes.write(responses.object(), id, outcome);
+      Recorded recorded = invoker.call(request);
+      metrics.record(recorded.outcome());
+      return new Pending(Outcomes.write(responses.object(), id, recorded.outcome()), id, recorded.durable());
     } catch (ApiException e) {
-      return Outcomes.refused(responses.object(), id, e.error(), lineNumber);
+      return new Pending(Outcomes.refused(responses.object(), id, e.error(), lineNumber), id, null);
     }
   }
 

@@ -12,6 +12,7 @@ import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import reckoner.call.Invoker;
 import reckoner.facts.FactStore;
+import reckoner.ledger.LedgerStore;
 import reckoner.splice.Filler;
 import reckoner.splice.Markup;
 import reckoner.tool.ErrorCode;
@@ -28,7 +29,7 @@ public final class HttpApi {
 
   /** What the routes need, made by {@code Main}. */
   public record Settings(long maxBodyBytes, long maxBatchBytes, Markup markup, ObjectNode openApi, BooleanSupplier ready,
-      ExecutorService callExecutor, FactStore facts) {}
+      ExecutorService callExecutor, FactStore facts, LedgerStore ledger) {}
 
   private HttpApi() {}
 
@@ -40,6 +41,7 @@ public final class HttpApi {
     BatchRoutes batch = new BatchRoutes(invoker, responses, callMetrics, new Bodies(settings.maxBatchBytes()),
         settings.callExecutor());
     FactsRoutes facts = new FactsRoutes(settings.facts(), responses);
+    LedgerRoutes ledger = new LedgerRoutes(settings.ledger(), responses);
     StatusPage status = new StatusPage(callMetrics, responses, java.time.Clock.systemUTC());
     SpliceRoutes splice = new SpliceRoutes(new Filler(invoker), responses, callMetrics, new Bodies(settings.maxBatchBytes()),
         settings.markup());
@@ -61,6 +63,8 @@ public final class HttpApi {
       config.routes.get("/health/live", ctx -> responses.json(ctx, 200, responses.object().put("status", "up")));
       config.routes.get("/health/ready", ctx -> ready(ctx, responses, settings.ready()));
       config.routes.get("/metrics", ctx -> ctx.contentType("text/plain; version=0.0.4; charset=utf-8").result(metrics.scrape()));
+      config.routes.get("/v1/invocations", ledger::query);
+      config.routes.get("/v1/invocations/export", ledger::export);
       config.routes.get("/status", status::show);
       config.routes.get("/v1/admin/facts", facts::show);
       config.routes.post("/v1/admin/facts/reload", facts::reload);

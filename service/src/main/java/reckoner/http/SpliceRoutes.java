@@ -40,6 +40,12 @@ final class SpliceRoutes {
       return;
     }
     metrics.record(s.outcome());
+    ApiException unrecorded = Durable.failure(s.durable());
+    if (unrecorded != null) {
+      unrecorded.headers().forEach(ctx::header);
+      responses.problem(ctx, unrecorded.error(), asText, null);
+      return;
+    }
     if (asText) {
       responses.text(ctx, s.isOk() ? 200 : Problem.status(s.outcome().error().get().code()), s.outcome().text());
       return;
@@ -65,6 +71,7 @@ final class SpliceRoutes {
     Request r = read(ctx, "document");
     Filler.Filled filled = filler.fill(r.text, r.markup, r.onError, tags(ctx));
     filled.calls().forEach(c -> metrics.record(c.outcome()));
+    Durable.await(filled.durable()); // a fill is acknowledged whole, or not at all
     if (asText) {
       responses.text(ctx, 200, filled.document());
       return;

@@ -5,6 +5,7 @@ import java.util.OptionalInt;
 import reckoner.call.CallRequest;
 import reckoner.call.Invoker;
 import reckoner.call.Outcome;
+import reckoner.call.Recorded;
 import reckoner.spec.ToolCatalog;
 import reckoner.spec.ToolSpec;
 import reckoner.tool.Answer;
@@ -74,8 +75,15 @@ final class ToolRoutes {
     JsonNode args = readArguments(ctx);
     CallRequest request = new CallRequest(id.name(), OptionalInt.of(id.version()), args,
         tag(ctx, AS_OF_HEADER), tag(ctx, RUN_HEADER), tag(ctx, REF_HEADER));
-    Outcome outcome = invoker.invoke(request);
+    Recorded recorded = invoker.call(request);
+    Outcome outcome = recorded.outcome();
     metrics.record(outcome);
+    ApiException unrecorded = Durable.failure(recorded.durable());
+    if (unrecorded != null) {
+      unrecorded.headers().forEach(ctx::header);
+      responses.problem(ctx, unrecorded.error(), asText, null);
+      return;
+    }
     if (outcome.isOk()) {
       answer(ctx, outcome, asText);
     } else {

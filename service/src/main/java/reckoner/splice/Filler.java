@@ -6,6 +6,8 @@ import java.util.Objects;
 import java.util.Optional;
 import reckoner.call.Invoker;
 import reckoner.call.Outcome;
+import reckoner.call.Recorded;
+import java.util.concurrent.CompletableFuture;
 import reckoner.tool.ErrorCode;
 import reckoner.tool.ToolError;
 
@@ -30,8 +32,8 @@ public final class Filler {
     }
   }
 
-  /** One answered call: where it stood, what it was, and what it came to. */
-  public record Spliced(int position, CallText call, Outcome outcome, String spliced) {
+  /** One answered call: where it stood, what it was, what it came to, and when its record is durable. */
+  public record Spliced(int position, CallText call, Outcome outcome, String spliced, CompletableFuture<Void> durable) {
     public boolean isOk() {
       return outcome.isOk();
     }
@@ -45,6 +47,11 @@ public final class Filler {
     public Filled {
       calls = List.copyOf(calls);
       malformed = List.copyOf(malformed);
+    }
+
+    /** Completes when every call's record is durable; fails if any is not recorded. */
+    public CompletableFuture<Void> durable() {
+      return CompletableFuture.allOf(calls.stream().map(Spliced::durable).toArray(CompletableFuture[]::new));
     }
   }
 
@@ -86,7 +93,8 @@ public final class Filler {
   }
 
   private Spliced answer(int position, CallText call, Markup markup, Tags tags) {
-    Outcome outcome = invoker.invokeText(call.tool(), call.version(), call.input(), tags.asOf(), tags.run(), tags.refAt(position));
+    Recorded recorded = invoker.callText(call.tool(), call.version(), call.input(), tags.asOf(), tags.run(), tags.refAt(position));
+    Outcome outcome = recorded.outcome();
     String spliced = markup.open() + call + markup.separator() + outcome.text() + markup.close();
     if (markup.occursIn(outcome.text()) || !parsesBack(spliced, call, outcome.text(), markup)) {
       ToolError refused = ToolError.of(ErrorCode.UNSPLICEABLE, "the answer holds a markup string ('" + markup.open() + "', '"
@@ -95,7 +103,7 @@ public final class Filler {
           outcome.cached(), outcome.elapsedNanos());
       spliced = markup.open() + call + markup.separator() + refused.text() + markup.close();
     }
-    return new Spliced(position, call, outcome, spliced);
+    return new Spliced(position, call, outcome, spliced, recorded.durable());
   }
 
   /** Whether the spliced call reads back as exactly this call with exactly this answer. */

@@ -106,7 +106,7 @@ final class InvocationTest {
 
   private static final Clock CLOCK = Clock.fixed(Instant.parse("2031-05-17T09:30:00Z"), ZoneOffset.UTC);
   private static final Invoker INVOKER =
-      new Invoker(ToolCatalog.of(ToolRegistry.of(Tools.standard()), new SpecLoader(JSON)), CLOCK);
+      new Invoker(ToolCatalog.of(ToolRegistry.of(Tools.demo()), new SpecLoader(JSON)), CLOCK);
 
   @Test
   void of_answeredCall_recordsCanonicalArgumentsAndText() {
