@@ -42,6 +42,25 @@ public final class OpenApi {
       paths.putObject(base).set("get", describe);
       paths.putObject(base + "/invoke").set("post", invoke(json, entry, schemaName));
     }
+    paths.putObject("/v1/batch").set("post", withBody(json, plain(json, "batch",
+        "Many calls: JSON {\"calls\":[{id,tool,version,args,ref}]} (at most 10,000), or NDJSON streamed one call a line; results in call order",
+        "application/json"), "application/json", "application/x-ndjson"));
+    paths.putObject("/v1/splice").set("post", withBody(json, plain(json, "splice",
+        "One call as a model wrote it (arith(1250/4000)); answers with the text and the spliced form", "application/json"),
+        "application/json", "text/plain"));
+    paths.putObject("/v1/fill").set("post", withBody(json, plain(json, "fill",
+        "A document with calls in markup; every unanswered call answered and spliced in place, with per-call outcomes",
+        "application/json"), "application/json", "text/plain"));
+    paths.putObject("/v1/invocations").set("get", plain(json, "invocations",
+        "Ledger query: run, tool, version, outcome, ref_prefix, since, until, limit, after (cursor)", "application/json"));
+    paths.putObject("/v1/invocations/export").set("get", plain(json, "exportInvocations",
+        "The same filters, every match streamed as NDJSON", "application/x-ndjson"));
+    paths.putObject("/v1/admin/facts").set("get", plain(json, "factSets", "The fact sets served and their data versions",
+        "application/json"));
+    paths.putObject("/v1/admin/facts/reload").set("post", plain(json, "reloadFacts",
+        "Read every fact file again; swap atomically only if all are sound (422 data_error otherwise)", "application/json"));
+    paths.putObject("/status").set("get", plain(json, "status", "A live page for ops: rates, errors, latency per tool",
+        "text/html"));
     paths.putObject("/openapi.json").set("get", plain(json, "openApi", "This document", "application/json"));
     paths.putObject("/health/live").set("get", plain(json, "live", "Liveness: the process answers", "application/json"));
     paths.putObject("/health/ready").set("get", plain(json, "ready", "Readiness: tools loaded and the ledger writable", "application/json"));
@@ -118,7 +137,18 @@ public final class OpenApi {
     op.put("operationId", id);
     op.put("summary", summary);
     op.putObject("responses").putObject("200").put("description", summary)
-        .putObject("content").putObject(mediaType).putObject("schema").put("type", mediaType.startsWith("text") ? "string" : "object");
+        .putObject("content").putObject(mediaType).putObject("schema")
+        .put("type", mediaType.equals("application/json") ? "object" : "string");
+    return op;
+  }
+
+  private static ObjectNode withBody(JsonMapper json, ObjectNode op, String... mediaTypes) {
+    ObjectNode body = op.putObject("requestBody");
+    body.put("required", true);
+    ObjectNode content = body.putObject("content");
+    for (String type : mediaTypes) {
+      content.putObject(type).putObject("schema").put("type", type.equals("application/json") ? "object" : "string");
+    }
     return op;
   }
 

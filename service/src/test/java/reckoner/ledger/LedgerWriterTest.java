@@ -89,6 +89,11 @@ final class LedgerWriterTest {
     store.open();
     CompletableFuture.allOf(futures.toArray(new CompletableFuture[0])).get(10, TimeUnit.SECONDS);
     assertEquals(List.of(1, 8, 8, 4), store.sizes());
+    // The listener runs after a batch's futures complete: wait for the last call before comparing.
+    long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(10);
+    while (seen.size() < 4 && System.nanoTime() < deadline) {
+      Thread.sleep(1);
+    }
     assertEquals(List.of(1, 8, 8, 4), seen);
     List<String> expected = new ArrayList<>();
     for (int i = 0; i <= 20; i++) {
