@@ -163,7 +163,13 @@ public final class BatchBench {
     for (String line; (line = out.readLine()) != null; ) {
       Matcher m = p.matcher(line);
       if (m.find()) {
-        Thread drain = new Thread(() -> out.lines().forEach(l -> { }));
+        Thread drain = new Thread(() -> {
+          try {
+            out.lines().forEach(l -> { });
+          } catch (java.io.UncheckedIOException e) {
+            // the server was stopped: nothing more to read
+          }
+        });
         drain.setDaemon(true);
         drain.start();
         return Integer.parseInt(m.group(1));

@@ -2,7 +2,7 @@
 # Latency and throughput of one arith@1 invoke over HTTP, against a baseline in the same run:
 # GET /health/live, which crosses the same HTTP stack but runs no tool.
 #
-# Usage: load-tests/invoke/run.sh [warmup-seconds] [measure-seconds]
+# Usage: [SERVER_ARGS="--durability async"] load-tests/invoke/run.sh [warmup-seconds] [measure-seconds]
 # Needs: wrk (Debian package "wrk"), a built jar (mvn -B -q -DskipTests package).
 # Talks only to 127.0.0.1.
 set -euo pipefail
@@ -15,7 +15,7 @@ jar=service/target/reckoner.jar
 command -v wrk >/dev/null || { echo "install wrk: apt-get install -y wrk" >&2; exit 2; }
 
 data=$(mktemp -d)
-java -Xms256m -Xmx512m -jar "$jar" serve --port "$port" --data-dir "$data" >"$data/server.log" 2>&1 &
+java -Xms256m -Xmx512m -jar "$jar" serve --port "$port" --data-dir "$data" ${SERVER_ARGS:-} >"$data/server.log" 2>&1 &
 pid=$!
 trap 'kill $pid 2>/dev/null; wait $pid 2>/dev/null; rm -rf "$data"' EXIT
 for _ in $(seq 1 100); do curl -fs "http://127.0.0.1:$port/health/ready" >/dev/null && break; sleep 0.2; done

@@ -233,25 +233,7 @@ public final class Arguments {
   }
 
   private static StringBuilder quote(StringBuilder sb, String s) {
-    sb.append('"');
-    for (int i = 0; i < s.length(); i++) {
-      char c = s.charAt(i);
-      switch (c) {
-        case '"' -> sb.append("\\\"");
-        case '\\' -> sb.append("\\\\");
-        case '\n' -> sb.append("\\n");
-        case '\r' -> sb.append("\\r");
-        case '\t' -> sb.append("\\t");
-        default -> {
-          if (c < 0x20 || c == 0x2028 || c == 0x2029) {
-            sb.append(String.format(java.util.Locale.ROOT, "\\u%04x", (int) c));
-          } else {
-            sb.append(c);
-          }
-        }
-      }
-    }
-    return sb.append('"');
+    return JsonStrings.quote(sb, s);
   }
 
   private static ToolException wrongType(String name, String expected, Object found) {
