@@ -50,6 +50,9 @@ public record InvocationQuery(Scope scope, String run, String tool, Integer vers
 
   public InvocationQuery {
     Objects.requireNonNull(scope, "scope");
+    run = withoutNul(run); // as Invocation stores them, so that such a filter matches and PostgreSQL accepts it
+    refPrefix = withoutNul(refPrefix);
+    tool = withoutNul(tool);
     requireNonEmpty("run", run);
     requireNonEmpty("tool", tool);
     requireNonEmpty("outcome", outcome);
@@ -217,6 +220,10 @@ public record InvocationQuery(Scope scope, String run, String tool, Integer vers
 
   private static ToolException invalid(String detail) {
     return new ToolException(ErrorCode.INVALID_ARGUMENT, detail);
+  }
+
+  private static String withoutNul(String s) {
+    return s == null || s.indexOf('\0') < 0 ? s : s.replace('\0', '\uFFFD');
   }
 
   private static void requireNonEmpty(String name, String value) {

@@ -30,14 +30,15 @@ final class LedgerCrashTest {
       Process child = new ProcessBuilder(javaBinary(), "-Xmx256m", "-cp", System.getProperty("java.class.path"),
           CrashChild.class.getName(), dir.toString()).redirectError(ProcessBuilder.Redirect.DISCARD).start();
       int acksThisRound = 0;
+      int target = 300 + 250 * round; // kill at a different point each round
       try (BufferedReader in = new BufferedReader(new InputStreamReader(child.getInputStream(), StandardCharsets.UTF_8))) {
-        int target = 300 + 250 * round; // kill at a different point each round
         for (String line; acksThisRound < target && (line = in.readLine()) != null; ) {
           if (line.startsWith("ack ")) {
             acknowledged.add(line.substring(4));
             acksThisRound++;
           }
         }
+        assertEquals(target, acksThisRound, "the child stopped before it was killed, in round " + round);
         child.toHandle().destroyForcibly(); // SIGKILL on Linux: no shutdown hook, no drain; the pipe stays readable
         assertTrue(child.waitFor(30, TimeUnit.SECONDS));
         // Lines already written before the kill are acknowledgements too.
@@ -47,7 +48,6 @@ final class LedgerCrashTest {
           }
         }
       }
-      assertTrue(acksThisRound > 0, "the child acknowledged nothing in round " + round);
       assertEquals(137, child.exitValue()); // 128 + signal 9, SIGKILL (POSIX wait status as the JDK reports it, from memory)
       LedgerCheck.Report report = LedgerCheck.check(dir.resolve("ledger.db"), acknowledged);
       assertEquals("ok", report.integrity(), "round " + round);

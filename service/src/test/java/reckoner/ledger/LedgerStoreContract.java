@@ -108,6 +108,8 @@ abstract class LedgerStoreContract {
   void append_nulCharacter_isStoredAsReplacementCharacter() {
     store.append(List.of(call(0, 0, HERON).ref("plot\u00001").build()));
     assertEquals("plot\uFFFD1", store.query(admin()).invocations().get(0).ref());
+    assertEquals(List.of(id(0, 0)), idsOf(admin().withRefPrefix("plot\u0000")));
+    assertEquals(List.of(), idsOf(admin().withRun("orchard\u0000")));
   }
 
   // ---- filters ----
