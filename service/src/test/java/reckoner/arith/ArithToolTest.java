@@ -18,35 +18,32 @@ import reckoner.tool.ToolException;
 final class ArithToolTest {
   private final ArithTool tool = new ArithTool();
 
-  private String eval(Map<String, Object> args) {
+  /** The answer's text, or the error's one-line text. */
+  private String eval(String expr, Object... more) {
     try {
-      return tool.invoke(tool.canonicalize(reckoner.tool.Arguments.of(args)), CallContext.systemUtc()).text();
+      return tool.invoke(tool.canonicalize(args(expr, more)), CallContext.systemUtc()).text();
     } catch (ToolException e) {
       return e.error().text();
     }
   }
 
-  private String eval(String expr, Object... more) {
-    Map<String, Object> args = new LinkedHashMap<>();
-    args.put("expr", expr);
-    for (int i = 0; i < more.length; i += 2) {
-      args.put((String) more[i], more[i + 1]);
-    }
-    return eval(args);
-  }
-
+  /** The error code, or null when the call succeeds. */
   private ErrorCode code(String expr, Object... more) {
-    Map<String, Object> args = new LinkedHashMap<>();
-    args.put("expr", expr);
-    for (int i = 0; i < more.length; i += 2) {
-      args.put((String) more[i], more[i + 1]);
-    }
     try {
-      tool.invoke(tool.canonicalize(reckoner.tool.Arguments.of(args)), CallContext.systemUtc());
+      tool.invoke(tool.canonicalize(args(expr, more)), CallContext.systemUtc());
       return null;
     } catch (ToolException e) {
       return e.error().code();
     }
+  }
+
+  private static reckoner.tool.Arguments args(String expr, Object... more) {
+    Map<String, Object> args = new LinkedHashMap<>();
+    args.put("expr", expr);
+    for (int i = 0; i < more.length; i += 2) {
+      args.put((String) more[i], more[i + 1]);
+    }
+    return reckoner.tool.Arguments.of(args);
   }
 
   /* ------- known identities (common practice) ------- */
