@@ -26,7 +26,7 @@ import java.util.regex.Pattern;
  * NDJSON batch throughput over HTTP against the same calls evaluated in-process without HTTP, in
  * one run. Run from the repository root after building the jar:
  *
- * <pre>java -cp service/target/reckoner.jar load-tests/batch/BatchBench.java [calls] [warmup-seconds] [rounds]</pre>
+ * <pre>[SERVER_ARGS="--durability async"] java -cp service/target/reckoner.jar load-tests/batch/BatchBench.java [calls] [warmup-seconds] [rounds]</pre>
  *
  * The server is a separate JVM on 127.0.0.1 with its defaults (ledger included, durability
  * commit). Both sides warm up first, then each is measured {@code rounds} times; the best and
@@ -43,9 +43,14 @@ public final class BatchBench {
         Runtime.getRuntime().availableProcessors(), System.getProperty("java.vm.version"));
 
     Path data = Files.createTempDirectory("reckoner-bench");
-    Process server = new ProcessBuilder(Path.of(System.getProperty("java.home"), "bin", "java").toString(), "-Xmx1g",
-        "-jar", "service/target/reckoner.jar", "serve", "--port", "0", "--data-dir", data.toString())
-        .redirectErrorStream(true).start();
+    List<String> command = new ArrayList<>(List.of(Path.of(System.getProperty("java.home"), "bin", "java").toString(), "-Xmx1g",
+        "-jar", "service/target/reckoner.jar", "serve", "--port", "0", "--data-dir", data.toString()));
+    String extra = System.getenv("SERVER_ARGS"); // e.g. "--durability async"
+    if (extra != null && !extra.isBlank()) {
+      command.addAll(List.of(extra.trim().split("\\s+")));
+    }
+    System.out.println("# server: " + String.join(" ", command.subList(3, command.size())));
+    Process server = new ProcessBuilder(command).redirectErrorStream(true).start();
     try {
       int port = awaitPort(server);
       long end = System.nanoTime() + TimeUnit.SECONDS.toNanos(warmup);
@@ -126,8 +131,15 @@ public final class BatchBench {
       while (!line(in).isEmpty()) { }
       BufferedReader reader = new BufferedReader(new InputStreamReader(new Chunked(in), StandardCharsets.UTF_8), 1 << 16);
       long count = 0;
-      while (reader.readLine() != null) {
+      long refused = 0;
+      for (String line; (line = reader.readLine()) != null; ) {
         count++;
+        if (line.contains("\"code\":\"unavailable\"")) {
+          refused++; // answered 503-style: the ledger could not take the record
+        }
+      }
+      if (refused > 0) {
+        System.out.printf(Locale.ROOT, "  (%d of %d answers were 'unavailable': the ledger queue was full)%n", refused, count);
       }
       sender.join();
       if (count != lines.size()) {
