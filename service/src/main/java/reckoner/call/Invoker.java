@@ -68,9 +68,11 @@ public final class Invoker {
 
   /** Runs one call given in its free-text form and hands its record to the ledger. */
   public Recorded callText(String tool, java.util.OptionalInt version, String text, String asOf, String run, String ref) {
-    tools.jackson.databind.node.ObjectNode args = tools.jackson.databind.node.JsonNodeFactory.instance.objectNode();
-    args.put(Arguments.TEXT, text);
-    return call(new CallRequest(tool, version, args, asOf, run, ref));
+    return call(new CallRequest(tool, version, textArgs(text), asOf, run, ref));
+  }
+
+  private static JsonNode textArgs(String text) {
+    return tools.jackson.databind.node.JsonNodeFactory.instance.objectNode().put(Arguments.TEXT, text);
   }
 
   public ToolCatalog catalog() {
@@ -79,9 +81,7 @@ public final class Invoker {
 
   /** Runs one call given in its free-text form, as a model wrote it. */
   public Outcome invokeText(String tool, java.util.OptionalInt version, String text, String asOf, String run, String ref) {
-    tools.jackson.databind.node.ObjectNode args = tools.jackson.databind.node.JsonNodeFactory.instance.objectNode();
-    args.put(Arguments.TEXT, text);
-    return invoke(new CallRequest(tool, version, args, asOf, run, ref));
+    return invoke(new CallRequest(tool, version, textArgs(text), asOf, run, ref));
   }
 
   /** Runs one call without recording it. Never throws for anything a caller sent. */
