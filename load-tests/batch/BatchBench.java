@@ -26,7 +26,7 @@ import java.util.regex.Pattern;
  * NDJSON batch throughput over HTTP against the same calls evaluated in-process without HTTP, in
  * one run. Run from the repository root after building the jar:
  *
- * <pre>[SERVER_ARGS="--durability async"] java -cp service/target/reckoner.jar load-tests/batch/BatchBench.java [calls] [warmup-seconds] [rounds]</pre>
+ * <pre>[SERVER_ARGS="--durability async"] [SERVER_JVM_ARGS="-XX:..."] java -cp service/target/reckoner.jar load-tests/batch/BatchBench.java [calls] [warmup-seconds] [rounds]</pre>
  *
  * The server is a separate JVM on 127.0.0.1 with its defaults (ledger included, durability
  * commit). Both sides warm up first, then each is measured {@code rounds} times; the best and
@@ -43,13 +43,17 @@ public final class BatchBench {
         Runtime.getRuntime().availableProcessors(), System.getProperty("java.vm.version"));
 
     Path data = Files.createTempDirectory("reckoner-bench");
-    List<String> command = new ArrayList<>(List.of(Path.of(System.getProperty("java.home"), "bin", "java").toString(), "-Xmx1g",
-        "-jar", "service/target/reckoner.jar", "serve", "--port", "0", "--data-dir", data.toString()));
+    List<String> command = new ArrayList<>(List.of(Path.of(System.getProperty("java.home"), "bin", "java").toString(), "-Xmx1g"));
+    String jvm = System.getenv("SERVER_JVM_ARGS"); // e.g. "-XX:StartFlightRecording=filename=/tmp/server.jfr" to profile
+    if (jvm != null && !jvm.isBlank()) {
+      command.addAll(List.of(jvm.trim().split("\\s+")));
+    }
+    command.addAll(List.of("-jar", "service/target/reckoner.jar", "serve", "--port", "0", "--data-dir", data.toString()));
     String extra = System.getenv("SERVER_ARGS"); // e.g. "--durability async"
     if (extra != null && !extra.isBlank()) {
       command.addAll(List.of(extra.trim().split("\\s+")));
     }
-    System.out.println("# server: " + String.join(" ", command.subList(3, command.size())));
+    System.out.println("# server: " + String.join(" ", command.subList(command.indexOf("-jar") + 1, command.size())));
     Process server = new ProcessBuilder(command).redirectErrorStream(true).start();
     try {
       int port = awaitPort(server);

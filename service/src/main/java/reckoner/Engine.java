@@ -6,7 +6,9 @@ import java.time.Clock;
 import java.time.Duration;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.UUID;
 import reckoner.call.AnswerCache;
+import reckoner.call.InvocationIds;
 import reckoner.call.InvocationSink;
 import reckoner.call.Invoker;
 import reckoner.ledger.LedgerSink;
@@ -49,7 +51,9 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
     } catch (IllegalArgumentException e) {
       throw new ConfigException("markup-open, markup-separator, markup-close: " + e.getMessage());
     }
-    return new Engine(catalog, cache, new Invoker(catalog, clock, cache, sink), markup, facts, ledger, writer, retention);
+    InvocationIds ids = new InvocationIds(clock);
+    ledger.newestBeyond(0).ifPresent(newest -> ids.startAfter(UUID.fromString(newest))); // ids keep rising across restarts
+    return new Engine(catalog, cache, new Invoker(catalog, clock, ids, cache, sink), markup, facts, ledger, writer, retention);
   }
 
   /** The ledger store the settings name, its schema created or migrated. */

@@ -19,6 +19,16 @@ public final class InvocationIds {
     this.clock = clock;
   }
 
+  /**
+   * Makes every later id greater than {@code id}: a generator that continues a ledger starts after
+   * its newest record, even if the clock now reads earlier than that record's time.
+   */
+  public void startAfter(UUID id) {
+    long msb = id.getMostSignificantBits();
+    long position = (msb >>> 16) << 12 | (msb & 0xFFF);
+    last.accumulateAndGet(position, Math::max);
+  }
+
   /** Returns the next id. */
   public UUID next() {
     long now = clock.millis() << 12;

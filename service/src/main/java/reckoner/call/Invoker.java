@@ -50,9 +50,14 @@ public final class Invoker {
   }
 
   public Invoker(ToolCatalog catalog, Clock clock, AnswerCache cache, InvocationSink sink) {
+    this(catalog, clock, new InvocationIds(clock), cache, sink);
+  }
+
+  /** An invoker whose invocation ids come from {@code ids} (one that continues a ledger). */
+  public Invoker(ToolCatalog catalog, Clock clock, InvocationIds ids, AnswerCache cache, InvocationSink sink) {
     this.catalog = catalog;
     this.context = new CallContext(clock);
-    this.ids = new InvocationIds(clock);
+    this.ids = ids;
     this.cache = cache;
     this.sink = sink;
   }

@@ -17,15 +17,13 @@ import javax.sql.DataSource;
 
 /**
  * The SQL both backends share: the schema's migration steps, the insert, the query built from an
- * {@link InvocationQuery}, streaming, and batched deletes. A backend says how it stores an id and
- * a time, where writes run, and how a forward-only read is set up.
+ * {@link InvocationQuery}, streaming, and batched deletes. A backend says in which columns it
+ * keeps an id (and how ids compare there), where writes run, and how a forward-only read is set up.
  */
 abstract class JdbcLedgerStore implements LedgerStore {
-  static final String COLUMNS =
-      "id, key_id, run, ref, tool, version, args, text, outcome, cached, elapsed_us, data_version, as_of";
-  private static final String INSERT_HEAD = "INSERT INTO invocations (" + COLUMNS + ", ts) VALUES ";
-  private static final String INSERT_ROW = "(?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)";
-  private static final int INSERT_COLUMNS = 14;
+  /** The columns after the id's, in the order inserts bind and selects read them. */
+  static final String FIELDS = "key_id, run, ref, tool, version, args, text, outcome, cached, elapsed_us, data_version, as_of";
+  private static final int FIELD_COUNT = 12;
   /** Rows fetched per round trip when streaming. */
   static final int FETCH_SIZE = 500;
   private static final int PROBE_BYTES = 8192;
@@ -38,11 +36,56 @@ abstract class JdbcLedgerStore implements LedgerStore {
   /** The pool that reads use. */
   abstract DataSource readPool();
 
-  abstract void bindId(PreparedStatement ps, int index, UUID id) throws SQLException;
+  // ---- how a backend keeps ids ----
 
-  abstract UUID readId(ResultSet rs, int index) throws SQLException;
+  /** How a bound compares with the ids a term selects. */
+  enum IdOp {
+    /** ids at or above the bound */
+    AT_LEAST,
+    /** ids above the bound */
+    ABOVE,
+    /** ids below the bound */
+    BELOW,
+    /** ids at or below the bound */
+    AT_MOST,
+    /** the bound's id itself */
+    EQUAL
+  }
 
-  abstract void bindTs(PreparedStatement ps, int index, Instant ts) throws SQLException;
+  /** The columns a SELECT reads an id from, before {@link #FIELDS}. */
+  abstract String selectIdColumns();
+
+  /** The number of columns in {@link #selectIdColumns()}. */
+  abstract int selectIdCount();
+
+  /** Reads the id from the columns of {@link #selectIdColumns()}, the first at {@code first}. */
+  abstract UUID readId(ResultSet rs, int first) throws SQLException;
+
+  /** The columns an INSERT writes for the id (and what is derived from it), before {@link #FIELDS}. */
+  abstract String insertIdColumns();
+
+  /** The number of columns in {@link #insertIdColumns()}. */
+  abstract int insertIdCount();
+
+  /** Binds the columns of {@link #insertIdColumns()}, the first at {@code first}. */
+  abstract void bindInsertId(PreparedStatement ps, int first, UUID id) throws SQLException;
+
+  /** The column whose order is the ids' order; its values are unique. */
+  abstract String idOrder();
+
+  /**
+   * Adds a sargable term selecting the ids that stand in relation {@code op} to {@code bound},
+   * with its parameters ({@link UUID}, {@link Long}, {@link Integer} or {@link String}).
+   */
+  abstract void idTerm(IdOp op, UUID bound, List<String> terms, List<Object> params);
+
+  /** What an INSERT does with a row whose key is already there (a replayed record). */
+  abstract String onConflict();
+
+  /** Binds a {@link UUID} parameter of a term. */
+  void bindId(PreparedStatement ps, int index, UUID id) throws SQLException {
+    ps.setObject(index, id);
+  }
 
   /** Prepares a read connection for a forward-only cursor that fetches {@link #FETCH_SIZE} rows at a time. */
   void beginStreaming(Connection c) throws SQLException {}
@@ -53,19 +96,25 @@ abstract class JdbcLedgerStore implements LedgerStore {
   /** The migration steps: element {@code i} brings the schema from version {@code i} to {@code i + 1}. */
   abstract List<List<String>> migrations();
 
-  /** Takes a lock that keeps other processes from migrating at the same time, inside the open transaction. */
-  void lockForMigration(Connection c) throws SQLException {}
+  /**
+   * Readies the open migration transaction: takes a lock that keeps other processes from migrating
+   * at the same time, and registers what the steps need.
+   */
+  void prepareMigration(Connection c) throws SQLException {}
 
   /** The backend's name for messages. */
   abstract String name();
 
   // ---- schema ----
 
-  /** Creates or migrates the schema; refuses a schema newer than this build knows. */
-  final void migrate() {
+  /**
+   * Creates or migrates the schema; refuses a schema newer than this build knows. Returns the
+   * version the store had before (0 for a new one).
+   */
+  final int migrate() {
     try {
-      inWriteTransaction(c -> {
-        lockForMigration(c);
+      return inWriteTransaction(c -> {
+        prepareMigration(c);
         try (Statement st = c.createStatement()) {
           st.execute("CREATE TABLE IF NOT EXISTS ledger_schema (version INTEGER NOT NULL)");
           int version;
@@ -85,8 +134,8 @@ abstract class JdbcLedgerStore implements LedgerStore {
           }
           st.execute("DELETE FROM ledger_schema");
           st.execute("INSERT INTO ledger_schema (version) VALUES (" + steps.size() + ")");
+          return version;
         }
-        return null;
       });
     } catch (SQLException e) {
       throw failed("could not create or migrate the ledger schema", e);
@@ -114,26 +163,33 @@ abstract class JdbcLedgerStore implements LedgerStore {
     int per = rowsPerStatement();
     int whole = invocations.size() / per;
     int rest = invocations.size() % per;
+    int width = insertIdCount() + FIELD_COUNT;
     try {
       inWriteTransaction(c -> {
+        long inserted = 0;
         if (whole > 0) {
           try (PreparedStatement ps = c.prepareStatement(insert(per))) {
             for (int k = 0; k < whole; k++) {
               for (int r = 0; r < per; r++) {
-                bindRow(ps, r * INSERT_COLUMNS, invocations.get(k * per + r));
+                bindRow(ps, r * width, invocations.get(k * per + r));
               }
               ps.addBatch();
             }
-            ps.executeBatch();
+            for (int n : ps.executeBatch()) {
+              inserted += n;
+            }
           }
         }
         if (rest > 0) {
           try (PreparedStatement ps = c.prepareStatement(insert(rest))) {
             for (int r = 0; r < rest; r++) {
-              bindRow(ps, r * INSERT_COLUMNS, invocations.get(whole * per + r));
+              bindRow(ps, r * width, invocations.get(whole * per + r));
             }
-            ps.executeUpdate();
+            inserted += ps.executeUpdate();
           }
+        }
+        if (inserted < invocations.size()) {
+          checkReplayed(c, invocations);
         }
         return null;
       });
@@ -142,39 +198,82 @@ abstract class JdbcLedgerStore implements LedgerStore {
     }
   }
 
+  /**
+   * Rows one INSERT skipped must be records written before (a batch replayed after a failure whose
+   * commit in fact went through): each id must be there exactly. Any other clash is a defect, and
+   * the batch fails loudly rather than lose a record.
+   */
+  private void checkReplayed(Connection c, List<Invocation> invocations) throws SQLException {
+    List<String> terms = new ArrayList<>();
+    List<Object> params = new ArrayList<>();
+    idTerm(IdOp.EQUAL, new UUID(0, 0), terms, params);
+    try (PreparedStatement ps = c.prepareStatement("SELECT 1 FROM invocations WHERE " + String.join(" AND ", terms))) {
+      for (Invocation inv : invocations) {
+        params.clear();
+        terms.clear();
+        idTerm(IdOp.EQUAL, IdBounds.parse(inv.id()), terms, params);
+        bindAll(ps, params);
+        try (ResultSet rs = ps.executeQuery()) {
+          if (!rs.next()) {
+            throw new IllegalStateException(name() + ": the record " + inv.id() + " clashes with another record's key;"
+                + " ids must come from one generator per ledger file");
+          }
+        }
+      }
+    }
+  }
+
+  /** Binds {@code params} from index 1 on. */
+  final void bindAll(PreparedStatement ps, List<Object> params) throws SQLException {
+    for (int i = 0; i < params.size(); i++) {
+      Object p = params.get(i);
+      if (p instanceof UUID id) {
+        bindId(ps, i + 1, id);
+      } else if (p instanceof Long n) {
+        ps.setLong(i + 1, n);
+      } else if (p instanceof Integer n) {
+        ps.setInt(i + 1, n);
+      } else {
+        ps.setString(i + 1, (String) p);
+      }
+    }
+  }
+
   /** Rows one INSERT statement carries; several rows a statement save per-statement work in the engine. */
   int rowsPerStatement() {
     return 1;
   }
 
-  private static String insert(int rows) {
-    StringBuilder sql = new StringBuilder(INSERT_HEAD);
+  private String insert(int rows) {
+    int width = insertIdCount() + FIELD_COUNT;
+    String row = "(" + "?, ".repeat(width - 1) + "?)";
+    StringBuilder sql = new StringBuilder("INSERT INTO invocations (").append(insertIdColumns()).append(", ")
+        .append(FIELDS).append(") VALUES ");
     for (int r = 0; r < rows; r++) {
-      sql.append(r == 0 ? "" : ", ").append(INSERT_ROW);
+      sql.append(r == 0 ? "" : ", ").append(row);
     }
-    return sql.append(" ON CONFLICT (id) DO NOTHING").toString();
+    return sql.append(onConflict()).toString();
   }
 
   private void bindRow(PreparedStatement ps, int at, Invocation inv) throws SQLException {
-    UUID id = IdBounds.parse(inv.id());
-    bindId(ps, at + 1, id);
-    ps.setString(at + 2, inv.keyId());
-    ps.setString(at + 3, inv.run());
-    ps.setString(at + 4, inv.ref());
-    ps.setString(at + 5, inv.tool());
+    bindInsertId(ps, at + 1, IdBounds.parse(inv.id()));
+    at += insertIdCount();
+    ps.setString(at + 1, inv.keyId());
+    ps.setString(at + 2, inv.run());
+    ps.setString(at + 3, inv.ref());
+    ps.setString(at + 4, inv.tool());
     if (inv.version() == null) {
-      ps.setNull(at + 6, java.sql.Types.INTEGER);
+      ps.setNull(at + 5, java.sql.Types.INTEGER);
     } else {
-      ps.setInt(at + 6, inv.version());
+      ps.setInt(at + 5, inv.version());
     }
-    ps.setString(at + 7, inv.args());
-    ps.setString(at + 8, inv.text());
-    ps.setString(at + 9, inv.outcome());
-    ps.setBoolean(at + 10, inv.cached());
-    ps.setLong(at + 11, inv.elapsedUs());
-    ps.setString(at + 12, inv.dataVersion());
-    ps.setString(at + 13, inv.asOf());
-    bindTs(ps, at + 14, Instant.ofEpochMilli(id.getMostSignificantBits() >>> 16)); // the time in the id
+    ps.setString(at + 6, inv.args());
+    ps.setString(at + 7, inv.text());
+    ps.setString(at + 8, inv.outcome());
+    ps.setBoolean(at + 9, inv.cached());
+    ps.setLong(at + 10, inv.elapsedUs());
+    ps.setString(at + 11, inv.dataVersion());
+    ps.setString(at + 12, inv.asOf());
   }
 
   @Override
@@ -207,8 +306,8 @@ abstract class JdbcLedgerStore implements LedgerStore {
     if (keep < 0) {
       throw new IllegalArgumentException("keep must not be negative: " + keep);
     }
-    try (Connection c = readPool().getConnection();
-         PreparedStatement ps = c.prepareStatement("SELECT id FROM invocations ORDER BY id DESC LIMIT 1 OFFSET ?")) {
+    try (Connection c = readPool().getConnection(); PreparedStatement ps = c.prepareStatement(
+        "SELECT " + selectIdColumns() + " FROM invocations ORDER BY " + idOrder() + " DESC LIMIT 1 OFFSET ?")) {
       ps.setLong(1, keep);
       try (ResultSet rs = ps.executeQuery()) {
         return rs.next() ? Optional.of(readId(rs, 1).toString()) : Optional.empty();
@@ -228,14 +327,16 @@ abstract class JdbcLedgerStore implements LedgerStore {
     if (batch < 1) {
       throw new IllegalArgumentException("batch must be positive: " + batch);
     }
-    String op = inclusive ? "<=" : "<";
-    String sql = "DELETE FROM invocations WHERE id IN (SELECT id FROM invocations WHERE id " + op
-        + " ? ORDER BY id LIMIT ?)";
+    List<String> terms = new ArrayList<>();
+    List<Object> params = new ArrayList<>();
+    idTerm(inclusive ? IdOp.AT_MOST : IdOp.BELOW, bound, terms, params);
+    params.add(batch);
+    String sql = "DELETE FROM invocations WHERE " + idOrder() + " IN (SELECT " + idOrder() + " FROM invocations WHERE "
+        + String.join(" AND ", terms) + " ORDER BY " + idOrder() + " LIMIT ?)";
     try {
       return inWriteTransaction(c -> {
         try (PreparedStatement ps = c.prepareStatement(sql)) {
-          bindId(ps, 1, bound);
-          ps.setInt(2, batch);
+          bindAll(ps, params);
           return ps.executeUpdate();
         }
       });
@@ -249,10 +350,10 @@ abstract class JdbcLedgerStore implements LedgerStore {
   @Override
   public final InvocationPage query(InvocationQuery query) {
     int size = query.pageSize();
-    Select select = Select.of(query, size + 1);
+    Select select = Select.of(this, query, size + 1);
     List<Invocation> rows = new ArrayList<>(Math.min(size + 1, 128));
     try (Connection c = readPool().getConnection(); PreparedStatement ps = c.prepareStatement(select.sql())) {
-      select.bind(this, ps);
+      bindAll(ps, select.parameters());
       try (ResultSet rs = ps.executeQuery()) {
         while (rs.next()) {
           rows.add(row(rs));
@@ -270,13 +371,13 @@ abstract class JdbcLedgerStore implements LedgerStore {
 
   @Override
   public final long forEach(InvocationQuery query, Sink sink) throws IOException {
-    Select select = Select.of(query, query.limit() == null ? -1 : query.limit());
+    Select select = Select.of(this, query, query.limit() == null ? -1 : query.limit());
     long count = 0;
     try (Connection c = readPool().getConnection()) {
       beginStreaming(c);
       try (PreparedStatement ps = c.prepareStatement(select.sql(), ResultSet.TYPE_FORWARD_ONLY, ResultSet.CONCUR_READ_ONLY)) {
         ps.setFetchSize(FETCH_SIZE);
-        select.bind(this, ps);
+        bindAll(ps, select.parameters());
         try (ResultSet rs = ps.executeQuery()) {
           while (rs.next()) {
             sink.accept(row(rs));
@@ -293,11 +394,12 @@ abstract class JdbcLedgerStore implements LedgerStore {
   }
 
   private Invocation row(ResultSet rs) throws SQLException {
-    int version = rs.getInt(6);
+    int at = selectIdCount();
+    int version = rs.getInt(at + 5);
     Integer v = rs.wasNull() ? null : version;
-    return new Invocation(readId(rs, 1).toString(), rs.getString(2), rs.getString(3), rs.getString(4),
-        rs.getString(5), v, rs.getString(7), rs.getString(8), rs.getString(9), rs.getBoolean(10),
-        rs.getLong(11), rs.getString(12), rs.getString(13));
+    return new Invocation(readId(rs, 1).toString(), rs.getString(at + 1), rs.getString(at + 2), rs.getString(at + 3),
+        rs.getString(at + 4), v, rs.getString(at + 6), rs.getString(at + 7), rs.getString(at + 8), rs.getBoolean(at + 9),
+        rs.getLong(at + 10), rs.getString(at + 11), rs.getString(at + 12));
   }
 
   final LedgerUnavailableException failed(String what, SQLException e) {

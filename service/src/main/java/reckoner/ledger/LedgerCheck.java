@@ -70,9 +70,11 @@ public final class LedgerCheck {
         count = rs.getLong(1);
       }
       List<String> missing = new ArrayList<>();
-      try (PreparedStatement ps = c.prepareStatement("SELECT 1 FROM invocations WHERE id = ?")) {
+      try (PreparedStatement ps = c.prepareStatement("SELECT 1 FROM invocations WHERE seq = ? AND id_lo = ?")) {
         for (String id : ids) {
-          ps.setBytes(1, IdBounds.bytes(UUID.fromString(id)));
+          UUID uuid = UUID.fromString(id);
+          ps.setLong(1, uuid.getMostSignificantBits());
+          ps.setLong(2, uuid.getLeastSignificantBits());
           try (ResultSet rs = ps.executeQuery()) {
             if (!rs.next()) {
               missing.add(id);

@@ -105,25 +105,66 @@ final class PostgresLedgerStore extends JdbcLedgerStore {
   }
 
   @Override
-  void lockForMigration(Connection c) throws SQLException {
+  void prepareMigration(Connection c) throws SQLException {
     try (Statement st = c.createStatement()) {
       st.execute("SELECT pg_advisory_xact_lock(" + MIGRATION_LOCK + ")");
     }
   }
 
   @Override
-  void bindId(PreparedStatement ps, int index, UUID id) throws SQLException {
-    ps.setObject(index, id);
+  String selectIdColumns() {
+    return "id";
   }
 
   @Override
-  UUID readId(ResultSet rs, int index) throws SQLException {
-    return rs.getObject(index, UUID.class);
+  int selectIdCount() {
+    return 1;
   }
 
   @Override
-  void bindTs(PreparedStatement ps, int index, Instant ts) throws SQLException {
-    ps.setObject(index, OffsetDateTime.ofInstant(ts, ZoneOffset.UTC));
+  UUID readId(ResultSet rs, int first) throws SQLException {
+    return rs.getObject(first, UUID.class);
+  }
+
+  /** The id, and the time in it (for readers of the table). */
+  @Override
+  String insertIdColumns() {
+    return "id, ts";
+  }
+
+  @Override
+  int insertIdCount() {
+    return 2;
+  }
+
+  @Override
+  void bindInsertId(PreparedStatement ps, int first, UUID id) throws SQLException {
+    ps.setObject(first, id);
+    ps.setObject(first + 1, OffsetDateTime.ofInstant(Instant.ofEpochMilli(id.getMostSignificantBits() >>> 16), ZoneOffset.UTC));
+  }
+
+  @Override
+  String idOrder() {
+    return "id";
+  }
+
+  /** PostgreSQL compares uuid values byte by byte, which is their unsigned order and so their time order. */
+  @Override
+  void idTerm(IdOp op, UUID bound, List<String> terms, List<Object> params) {
+    String cmp = switch (op) {
+      case AT_LEAST -> ">=";
+      case ABOVE -> ">";
+      case BELOW -> "<";
+      case AT_MOST -> "<=";
+      case EQUAL -> "=";
+    };
+    terms.add("id " + cmp + " ?");
+    params.add(bound);
+  }
+
+  @Override
+  String onConflict() {
+    return " ON CONFLICT (id) DO NOTHING";
   }
 
   @Override

@@ -1,22 +1,20 @@
 package reckoner.ledger;
 
-import java.sql.PreparedStatement;
-import java.sql.SQLException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 import java.util.UUID;
 
 /**
- * The SELECT for one {@link InvocationQuery}: every filter a sargable term, so that an index whose
- * last column is the id (the primary key, or {@code (run, id)}, {@code (tool, id)},
- * {@code (outcome, id)}, {@code (key_id, id)}) serves both the filter and the order, and a page
- * reads only as many index entries as it returns (plus the ones a second filter skips).
+ * The SELECT for one {@link InvocationQuery}: every filter a sargable term, so that an index
+ * ordered by the id within each value (the table itself, or the indexes on run, tool, outcome and
+ * key) serves both the filter and the order, and a page reads only as many index entries as it
+ * returns (plus the ones a second filter skips).
  */
 record Select(String sql, List<Object> parameters) {
 
-  /** The query's SELECT, in id order, with at most {@code limit} rows ({@code -1}: no limit). */
-  static Select of(InvocationQuery q, int limit) {
+  /** The query's SELECT for {@code store}, in id order, with at most {@code limit} rows ({@code -1}: no limit). */
+  static Select of(JdbcLedgerStore store, InvocationQuery q, int limit) {
     List<String> terms = new ArrayList<>();
     List<Object> params = new ArrayList<>();
     if (!q.scope().isAll()) {
@@ -58,43 +56,26 @@ record Select(String sql, List<Object> parameters) {
     if (q.since() != null) {
       Optional<UUID> first = IdBounds.firstIdAtOrAfter(q.since());
       if (first.isPresent()) {
-        terms.add("id >= ?");
-        params.add(first.get());
+        store.idTerm(JdbcLedgerStore.IdOp.AT_LEAST, first.get(), terms, params);
       } else {
         terms.add("1 = 0"); // no id can be that late
       }
     }
     if (q.until() != null) {
-      IdBounds.firstIdAtOrAfter(q.until()).ifPresent(first -> {
-        terms.add("id < ?");
-        params.add(first);
-      });
+      IdBounds.firstIdAtOrAfter(q.until()).ifPresent(first -> store.idTerm(JdbcLedgerStore.IdOp.BELOW, first, terms, params));
     }
     if (q.after() != null) {
-      terms.add("id > ?");
-      params.add(UUID.fromString(q.after()));
+      store.idTerm(JdbcLedgerStore.IdOp.ABOVE, UUID.fromString(q.after()), terms, params);
     }
-    StringBuilder sql = new StringBuilder("SELECT ").append(JdbcLedgerStore.COLUMNS).append(" FROM invocations");
+    StringBuilder sql = new StringBuilder("SELECT ").append(store.selectIdColumns()).append(", ")
+        .append(JdbcLedgerStore.FIELDS).append(" FROM invocations");
     if (!terms.isEmpty()) {
       sql.append(" WHERE ").append(String.join(" AND ", terms));
     }
-    sql.append(" ORDER BY id");
+    sql.append(" ORDER BY ").append(store.idOrder());
     if (limit >= 0) {
       sql.append(" LIMIT ").append(limit);
     }
     return new Select(sql.toString(), List.copyOf(params));
-  }
-
-  void bind(JdbcLedgerStore store, PreparedStatement ps) throws SQLException {
-    for (int i = 0; i < parameters.size(); i++) {
-      Object p = parameters.get(i);
-      if (p instanceof UUID id) {
-        store.bindId(ps, i + 1, id);
-      } else if (p instanceof Integer n) {
-        ps.setInt(i + 1, n);
-      } else {
-        ps.setString(i + 1, (String) p);
-      }
-    }
   }
 }

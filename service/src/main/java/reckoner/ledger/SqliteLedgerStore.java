@@ -12,7 +12,6 @@ import java.sql.ResultSet;
 import java.sql.SQLException;
 import java.sql.Statement;
 import java.time.Duration;
-import java.time.Instant;
 import java.util.List;
 import java.util.UUID;
 import java.util.concurrent.Executors;
@@ -29,10 +28,20 @@ import org.sqlite.SQLiteDataSource;
  * The embedded ledger: one SQLite file in WAL mode. Writes go through one connection of their own,
  * one transaction at a time (SQLite has one writer, and taking turns here means no writer ever
  * waits on the file lock); reads use a small pool and, in WAL mode, never wait for the writer.
- * Ids are 16-byte BLOBs, whose byte order is their time order.
+ *
+ * <p>An id is kept as two integers: its high 64 bits (the millisecond, version and counter of a
+ * UUIDv7) are the table's rowid {@code seq}, and its low 64 bits are {@code id_lo}. The rowid is the
+ * table's own key, so there is no separate id index, every secondary index is ordered by time within
+ * each of its values at no cost, and each insert appends at the end of the table. This needs the high
+ * halves to be unique, which holds for ids from one generator (its counter makes them strictly
+ * increasing); so one process at a time may write a ledger file (a lock file next to it says which),
+ * and the service starts its generator after the newest id in the file. The view
+ * {@code invocation_records} shows ids and times as text, for readers of the file.
  */
 final class SqliteLedgerStore extends JdbcLedgerStore {
   static final String FILE_NAME = "ledger.db";
+  /** The file whose lock marks the process that writes the ledger. */
+  static final String LOCK_FILE_NAME = "ledger.db.writer-lock";
   private static final int READ_POOL_SIZE = 8; // queries and exports at once; SQLite connections are cheap
   private static final int BUSY_TIMEOUT_MS = 10_000; // other processes (a check, a backup) may hold the lock briefly
   private static final int CACHE_KIB = 32 * 1024;
@@ -51,6 +60,7 @@ final class SqliteLedgerStore extends JdbcLedgerStore {
   }
 
   private final Path file;
+  private final WriterLock lock;
   private final SQLiteConfig writeConfig;
   private final HikariDataSource readPool;
   private final ReentrantLock writeLock = new ReentrantLock();
@@ -58,8 +68,9 @@ final class SqliteLedgerStore extends JdbcLedgerStore {
   private Connection writer; // guarded by writeLock; reopened after a failure
   private int pageLimit; // guarded by writeLock; 0 = SQLite's own limit
 
-  private SqliteLedgerStore(Path file, Sync sync) {
+  private SqliteLedgerStore(Path file, Sync sync, WriterLock lock) {
     this.file = file;
+    this.lock = lock;
     this.writeConfig = config(sync);
     writeConfig.setTransactionMode(SQLiteConfig.TransactionMode.IMMEDIATE);
     SQLiteDataSource reads = new SQLiteDataSource(config(sync));
@@ -87,9 +98,18 @@ final class SqliteLedgerStore extends JdbcLedgerStore {
     } catch (IOException e) {
       throw new UncheckedIOException("cannot create the ledger's directory for " + file, e);
     }
-    SqliteLedgerStore store = new SqliteLedgerStore(file, sync);
+    WriterLock lock = WriterLock.take(file.resolveSibling(LOCK_FILE_NAME), file);
+    SqliteLedgerStore store;
     try {
-      store.migrate();
+      store = new SqliteLedgerStore(file, sync, lock);
+    } catch (RuntimeException e) {
+      lock.close();
+      throw e;
+    }
+    try {
+      if (store.migrate() < store.migrations().size()) {
+        store.compact(); // a migration rebuilds tables; give the old ones' pages back
+      }
     } catch (RuntimeException e) {
       store.close();
       throw e;
@@ -116,6 +136,23 @@ final class SqliteLedgerStore extends JdbcLedgerStore {
       try (Statement st = writer.createStatement()) {
         st.execute("PRAGMA optimize=0x10002");
       }
+    } finally {
+      writeLock.unlock();
+    }
+  }
+
+  /** Rebuilds the file without free pages ({@code VACUUM}), holding the write lock. */
+  private void compact() {
+    writeLock.lock();
+    try {
+      if (writer == null) {
+        writer = writeConfig.createConnection(url(file));
+      }
+      try (Statement st = writer.createStatement()) {
+        st.execute("VACUUM");
+      }
+    } catch (SQLException e) {
+      throw failed("could not compact the ledger after migrating it", e);
     } finally {
       writeLock.unlock();
     }
@@ -230,36 +267,155 @@ final class SqliteLedgerStore extends JdbcLedgerStore {
   }
 
   @Override
-  void bindId(PreparedStatement ps, int index, UUID id) throws SQLException {
-    ps.setBytes(index, IdBounds.bytes(id));
+  String selectIdColumns() {
+    return "seq, id_lo";
   }
 
   @Override
-  UUID readId(ResultSet rs, int index) throws SQLException {
-    return IdBounds.fromBytes(rs.getBytes(index));
+  int selectIdCount() {
+    return 2;
   }
 
   @Override
-  void bindTs(PreparedStatement ps, int index, Instant ts) throws SQLException {
-    ps.setLong(index, ts.toEpochMilli());
+  UUID readId(ResultSet rs, int first) throws SQLException {
+    return new UUID(rs.getLong(first), rs.getLong(first + 1));
+  }
+
+  @Override
+  String insertIdColumns() {
+    return "seq, id_lo";
+  }
+
+  @Override
+  int insertIdCount() {
+    return 2;
+  }
+
+  @Override
+  void bindInsertId(PreparedStatement ps, int first, UUID id) throws SQLException {
+    long seq = id.getMostSignificantBits();
+    if (seq < 0) { // a millisecond of 2^47 or more: the year 6429
+      throw new IllegalArgumentException("the SQLite ledger keeps ids up to the year 6429, not " + id);
+    }
+    ps.setLong(first, seq);
+    ps.setLong(first + 1, id.getLeastSignificantBits());
+  }
+
+  @Override
+  String idOrder() {
+    return "seq";
+  }
+
+  /**
+   * The stored low halves all have the UUID variant bits {@code 10} on top ({@link Invocation}
+   * checks), so as signed numbers they are all negative and their signed order is their unsigned
+   * order; a bound whose low half is not negative lies below every one of them, and then the high
+   * half alone decides. High halves are stored only when not negative (see {@link #bindInsertId}),
+   * so a negative one lies above every stored id.
+   */
+  @Override
+  void idTerm(IdOp op, UUID bound, List<String> terms, List<Object> params) {
+    long seq = bound.getMostSignificantBits();
+    long lo = bound.getLeastSignificantBits();
+    if (seq < 0) {
+      terms.add(op == IdOp.BELOW || op == IdOp.AT_MOST ? "1 = 1" : "1 = 0");
+      return;
+    }
+    if (op == IdOp.EQUAL) {
+      terms.add("seq = ? AND id_lo = ?");
+      params.add(seq);
+      params.add(lo);
+      return;
+    }
+    boolean upward = op == IdOp.AT_LEAST || op == IdOp.ABOVE;
+    if (lo >= 0) { // below every stored low half: rows of the bound's own seq are above it
+      terms.add(upward ? "seq >= ?" : "seq < ?");
+      params.add(seq);
+      return;
+    }
+    String loCmp = switch (op) {
+      case AT_LEAST -> ">=";
+      case ABOVE -> ">";
+      case BELOW -> "<";
+      default -> "<=";
+    };
+    // The first term is the rowid range the search walks; the second settles the one row at its edge.
+    terms.add(upward ? "seq >= ? AND (seq > ? OR id_lo " + loCmp + " ?)" : "seq <= ? AND (seq < ? OR id_lo " + loCmp + " ?)");
+    params.add(seq);
+    params.add(seq);
+    params.add(lo);
+  }
+
+  /** A replayed record is skipped, and {@link JdbcLedgerStore#append} checks that it is the same id. */
+  @Override
+  String onConflict() {
+    return " ON CONFLICT DO NOTHING";
+  }
+
+  /** The functions the second step uses to split version 1's 16-byte ids. */
+  @Override
+  void prepareMigration(Connection c) throws SQLException {
+    org.sqlite.Function.create(c, "reckoner_id_high", new IdHalf(true));
+    org.sqlite.Function.create(c, "reckoner_id_low", new IdHalf(false));
   }
 
   @Override
   List<List<String>> migrations() {
-    return List.of(List.of(
-        "CREATE TABLE invocations ("
-            + " id BLOB NOT NULL PRIMARY KEY," // UUIDv7, 16 bytes, big-endian
-            + " ts INTEGER NOT NULL," // Unix milliseconds, the time in the id (for readers of the file)
-            + " key_id TEXT NOT NULL, run TEXT, ref TEXT, tool TEXT NOT NULL, version INTEGER,"
-            + " args TEXT, text TEXT NOT NULL, outcome TEXT NOT NULL, cached INTEGER NOT NULL,"
-            + " elapsed_us INTEGER NOT NULL, data_version TEXT, as_of TEXT)",
-        "CREATE INDEX invocations_by_key ON invocations (key_id, id)",
-        "CREATE INDEX invocations_by_run ON invocations (run, id) WHERE run IS NOT NULL",
-        "CREATE INDEX invocations_by_tool ON invocations (tool, id)",
-        "CREATE INDEX invocations_by_error ON invocations (outcome, id) WHERE outcome <> 'ok'",
-        "CREATE INDEX invocations_errors ON invocations (id) WHERE outcome <> 'ok'",
-        "CREATE INDEX invocations_by_ref ON invocations (ref, id) WHERE ref IS NOT NULL",
-        "CREATE TABLE ledger_probe (n INTEGER PRIMARY KEY, pad BLOB)"));
+    return List.of(
+        List.of(
+            "CREATE TABLE invocations ("
+                + " id BLOB NOT NULL PRIMARY KEY," // UUIDv7, 16 bytes, big-endian
+                + " ts INTEGER NOT NULL," // Unix milliseconds, the time in the id (for readers of the file)
+                + " key_id TEXT NOT NULL, run TEXT, ref TEXT, tool TEXT NOT NULL, version INTEGER,"
+                + " args TEXT, text TEXT NOT NULL, outcome TEXT NOT NULL, cached INTEGER NOT NULL,"
+                + " elapsed_us INTEGER NOT NULL, data_version TEXT, as_of TEXT)",
+            "CREATE INDEX invocations_by_key ON invocations (key_id, id)",
+            "CREATE INDEX invocations_by_run ON invocations (run, id) WHERE run IS NOT NULL",
+            "CREATE INDEX invocations_by_tool ON invocations (tool, id)",
+            "CREATE INDEX invocations_by_error ON invocations (outcome, id) WHERE outcome <> 'ok'",
+            "CREATE INDEX invocations_errors ON invocations (id) WHERE outcome <> 'ok'",
+            "CREATE INDEX invocations_by_ref ON invocations (ref, id) WHERE ref IS NOT NULL",
+            "CREATE TABLE ledger_probe (n INTEGER PRIMARY KEY, pad BLOB)"),
+        // Version 2: the id's high half becomes the rowid (see the class comment). Indexes no longer
+        // carry the id: each entry ends with the rowid, which orders it by time within its value.
+        List.of(
+            "CREATE TABLE invocations_2 ("
+                + " seq INTEGER PRIMARY KEY," // the id's high 64 bits: Unix millisecond << 16 | 0x7000 | counter
+                + " id_lo INTEGER NOT NULL," // the id's low 64 bits
+                + " key_id TEXT NOT NULL, run TEXT, ref TEXT, tool TEXT NOT NULL, version INTEGER,"
+                + " args TEXT, text TEXT NOT NULL, outcome TEXT NOT NULL, cached INTEGER NOT NULL,"
+                + " elapsed_us INTEGER NOT NULL, data_version TEXT, as_of TEXT)",
+            "INSERT INTO invocations_2 SELECT reckoner_id_high(id), reckoner_id_low(id), key_id, run, ref, tool, version,"
+                + " args, text, outcome, cached, elapsed_us, data_version, as_of FROM invocations ORDER BY id",
+            "DROP TABLE invocations",
+            "ALTER TABLE invocations_2 RENAME TO invocations",
+            "CREATE INDEX invocations_by_key ON invocations (key_id)",
+            "CREATE INDEX invocations_by_run ON invocations (run) WHERE run IS NOT NULL",
+            "CREATE INDEX invocations_by_tool ON invocations (tool)",
+            "CREATE INDEX invocations_by_error ON invocations (outcome) WHERE outcome <> 'ok'",
+            "CREATE INDEX invocations_errors ON invocations (seq) WHERE outcome <> 'ok'",
+            "CREATE INDEX invocations_by_ref ON invocations (ref) WHERE ref IS NOT NULL",
+            "CREATE VIEW invocation_records AS SELECT"
+                + " printf('%08x-%04x-%04x-%04x-%012x', (seq >> 32) & 0xffffffff, (seq >> 16) & 0xffff, seq & 0xffff,"
+                + " (id_lo >> 48) & 0xffff, id_lo & 0xffffffffffff) AS id,"
+                + " strftime('%Y-%m-%dT%H:%M:%fZ', (seq >> 16) / 1000.0, 'unixepoch') AS ts,"
+                + " key_id, run, ref, tool, version, args, text, outcome, cached, elapsed_us, data_version, as_of"
+                + " FROM invocations"));
+  }
+
+  /** {@code reckoner_id_high(blob)} and {@code reckoner_id_low(blob)}: the halves of a 16-byte id. */
+  private static final class IdHalf extends org.sqlite.Function {
+    private final boolean high;
+
+    IdHalf(boolean high) {
+      this.high = high;
+    }
+
+    @Override
+    protected void xFunc() throws SQLException {
+      UUID id = IdBounds.fromBytes(value_blob(0));
+      result(high ? id.getMostSignificantBits() : id.getLeastSignificantBits());
+    }
   }
 
   @Override
@@ -284,5 +440,6 @@ final class SqliteLedgerStore extends JdbcLedgerStore {
       writeLock.unlock();
     }
     readPool.close();
+    lock.close();
   }
 }

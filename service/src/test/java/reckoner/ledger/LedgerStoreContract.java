@@ -156,6 +156,26 @@ abstract class LedgerStoreContract {
 
   // ---- pages and cursor ----
 
+  /**
+   * A cursor need not be an id the ledger holds: ids compare as unsigned 128-bit numbers (RFC 9562,
+   * section 6.11), so a cursor with a record's high half and a low half of all zeros lies just
+   * below that record, and one with a low half of all ones just above it.
+   */
+  @Test
+  void query_cursorBetweenIds_comparesAsUnsigned128BitNumbers() {
+    store.append(List.of(call(0, 0, HERON).build(), call(0, 1, HERON).build(), call(0, 2, HERON).build()));
+    java.util.UUID middle = java.util.UUID.fromString(id(0, 1));
+    String lowZero = new java.util.UUID(middle.getMostSignificantBits(), 0L).toString();
+    String lowOnes = new java.util.UUID(middle.getMostSignificantBits(), -1L).toString();
+    String lowBelow = new java.util.UUID(middle.getMostSignificantBits(), middle.getLeastSignificantBits() - 1).toString();
+    assertEquals(List.of(id(0, 1), id(0, 2)), idsOf(admin().withAfter(lowZero)));
+    assertEquals(List.of(id(0, 1), id(0, 2)), idsOf(admin().withAfter(lowBelow)));
+    assertEquals(List.of(id(0, 2)), idsOf(admin().withAfter(id(0, 1))));
+    assertEquals(List.of(id(0, 2)), idsOf(admin().withAfter(lowOnes)));
+    assertEquals(List.of(), idsOf(admin().withAfter(new java.util.UUID(-1L, -1L).toString())));
+    assertEquals(List.of(id(0, 0), id(0, 1), id(0, 2)), idsOf(admin().withAfter(new java.util.UUID(0L, 0L).toString())));
+  }
+
   @Test
   void query_followingNextCursor_readsEveryRecordOnceInOrder() {
     List<Invocation> all = new ArrayList<>();
