@@ -16,11 +16,20 @@ import reckoner.tool.ToolId;
  * is never stored. Bounded by entry count; thread-safe.
  */
 public final class AnswerCache {
-  /** The cache key: equal for two spellings of one call, different after a data reload. */
-  record Key(ToolId tool, Arguments canonical, String dataVersion) {
+  /**
+   * The cache key: equal for two spellings of one call, different after a data reload. The
+   * arguments are held as their canonical JSON ({@link Arguments#toCanonicalJson()}, one string for
+   * one value of {@link Arguments}, and made once for the ledger anyway), so a lookup compares two
+   * strings rather than two maps.
+   */
+  record Key(ToolId tool, String canonical, String dataVersion) {
     Key {
       Objects.requireNonNull(tool, "tool");
       Objects.requireNonNull(canonical, "canonical");
+    }
+
+    Key(ToolId tool, Arguments canonical, String dataVersion) {
+      this(tool, canonical.toCanonicalJson(), dataVersion);
     }
   }
 

@@ -20,6 +20,13 @@ public final class CallMetrics {
   private final java.util.concurrent.ConcurrentHashMap<String, Counter> counters = new java.util.concurrent.ConcurrentHashMap<>();
   private final java.util.concurrent.ConcurrentHashMap<String, Timer> timers = new java.util.concurrent.ConcurrentHashMap<>();
   private final Counter cacheHits;
+  /** The meters of one label set, found without building their string key on every call. */
+  private final java.util.concurrent.ConcurrentHashMap<Labels, Meters> byLabels = new java.util.concurrent.ConcurrentHashMap<>();
+
+  /** A tool version (null for an unknown tool) and an outcome (null for ok). */
+  private record Labels(reckoner.tool.ToolId tool, reckoner.tool.ErrorCode code) {}
+
+  private record Meters(Counter calls, Timer duration) {}
 
   public CallMetrics(MeterRegistry registry) {
     this.registry = registry;
@@ -67,27 +74,38 @@ public final class CallMetrics {
 
   public void record(Outcome outcome) {
     try {
-      String tool = outcome.tool().map(t -> t.name()).orElse("unknown");
-      String version = outcome.tool().map(t -> Integer.toString(t.version())).orElse("none");
-      String result = outcome.isOk() ? "ok" : outcome.error().get().code().wireName();
-      // Meters are looked up once per label set: registering on every call costs more than the call.
-      counters.computeIfAbsent(tool + '\u0000' + version + '\u0000' + result, k -> Counter.builder("reckoner.calls")
-          .description("Tool calls by outcome: ok or the error code")
-          .tags("tool", tool, "version", version, "outcome", result)
-          .register(registry)).increment();
-      timers.computeIfAbsent(tool + '\u0000' + version, k -> Timer.builder("reckoner.call.duration")
-          .description("Time to run one call inside the service, from arguments to answer")
-          .tags("tool", tool, "version", version)
-          .publishPercentileHistogram()
-          .publishPercentiles(0.5, 0.99) // for the status page, over Micrometer's decaying window
-          .minimumExpectedValue(Duration.ofNanos(1_000))
-          .maximumExpectedValue(Duration.ofSeconds(1))
-          .register(registry)).record(outcome.elapsedNanos(), TimeUnit.NANOSECONDS);
+      Labels labels = new Labels(outcome.tool().orElse(null), outcome.isOk() ? null : outcome.error().get().code());
+      Meters meters = byLabels.get(labels);
+      if (meters == null) {
+        meters = byLabels.computeIfAbsent(labels, this::register);
+      }
+      meters.calls().increment();
+      meters.duration().record(outcome.elapsedNanos(), TimeUnit.NANOSECONDS);
       if (outcome.cached()) {
         cacheHits.increment();
       }
     } catch (RuntimeException e) {
       LOG.warn("metrics failed; the call is unaffected", e);
     }
+  }
+
+  /** Meters are looked up once per label set: registering on every call costs more than the call. */
+  private Meters register(Labels labels) {
+    String tool = labels.tool() == null ? "unknown" : labels.tool().name();
+    String version = labels.tool() == null ? "none" : Integer.toString(labels.tool().version());
+    String result = labels.code() == null ? "ok" : labels.code().wireName();
+    Counter calls = counters.computeIfAbsent(tool + '\u0000' + version + '\u0000' + result, k -> Counter.builder("reckoner.calls")
+        .description("Tool calls by outcome: ok or the error code")
+        .tags("tool", tool, "version", version, "outcome", result)
+        .register(registry));
+    Timer duration = timers.computeIfAbsent(tool + '\u0000' + version, k -> Timer.builder("reckoner.call.duration")
+        .description("Time to run one call inside the service, from arguments to answer")
+        .tags("tool", tool, "version", version)
+        .publishPercentileHistogram()
+        .publishPercentiles(0.5, 0.99) // for the status page, over Micrometer's decaying window
+        .minimumExpectedValue(Duration.ofNanos(1_000))
+        .maximumExpectedValue(Duration.ofSeconds(1))
+        .register(registry));
+    return new Meters(calls, duration);
   }
 }

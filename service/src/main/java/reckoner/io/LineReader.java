@@ -38,6 +38,14 @@ public final class LineReader {
     this.maxLine = maxLine;
   }
 
+  /**
+   * Whether bytes already read from the stream are waiting: when not, the next {@link #next()}
+   * reads the stream and may block until the sender sends more.
+   */
+  public boolean hasBuffered() {
+    return pos < limit;
+  }
+
   /** The next line, or null at the end of the stream. */
   public Line next() throws IOException {
     current.reset();

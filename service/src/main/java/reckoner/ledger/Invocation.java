@@ -68,7 +68,7 @@ public record Invocation(String id, String keyId, String run, String ref, String
     args = clean(args);
     text = clean(Objects.requireNonNull(text, "text"));
     Objects.requireNonNull(outcome, "outcome");
-    if (!OUTCOME.matcher(outcome).matches()) {
+    if (!outcome.equals(OK) && !OUTCOME.matcher(outcome).matches()) {
       throw new IllegalArgumentException("outcome must be 'ok' or an error code: " + outcome);
     }
     if (elapsedUs < 0) {
@@ -152,6 +152,9 @@ public record Invocation(String id, String keyId, String run, String ref, String
 
   private static String checkId(String id) {
     Objects.requireNonNull(id, "id");
+    if (isCanonicalV7(id)) {
+      return id;
+    }
     UUID uuid;
     try {
       uuid = UUID.fromString(id);
@@ -162,6 +165,22 @@ public record Invocation(String id, String keyId, String run, String ref, String
       throw new IllegalArgumentException("id must be a UUIDv7 in lower-case canonical form: " + id);
     }
     return id;
+  }
+
+  /** Lower-case 8-4-4-4-12 hex with version 7 and variant 2, checked by hand (the common case, quickly). */
+  private static boolean isCanonicalV7(String id) {
+    if (id.length() != 36 || id.charAt(14) != '7') {
+      return false;
+    }
+    for (int i = 0; i < 36; i++) {
+      char c = id.charAt(i);
+      boolean ok = i == 8 || i == 13 || i == 18 || i == 23 ? c == '-' : (c >= '0' && c <= '9') || (c >= 'a' && c <= 'f');
+      if (!ok) {
+        return false;
+      }
+    }
+    char variant = id.charAt(19);
+    return variant == '8' || variant == '9' || variant == 'a' || variant == 'b';
   }
 
   private static String clean(String s) {

@@ -130,4 +130,44 @@ final class BatchTest {
     }
     assertTrue(expectedLine > 0);
   }
+
+  /**
+   * A caller that sends one line and waits for its answer before sending the next (an inference
+   * server pausing at each call) gets each answer while the request is still open: lines are not
+   * held back to fill a chunk of work.
+   */
+  @Test
+  void ndjsonBatch_oneLineAtATime_answersEachBeforeTheNextIsSent() throws Exception {
+    try (java.net.Socket socket = new java.net.Socket("127.0.0.1", server.port())) {
+      socket.setSoTimeout(10_000); // a held-back answer fails the test instead of hanging it
+      java.io.OutputStream out = socket.getOutputStream();
+      out.write(("POST /v1/batch HTTP/1.1\r\nHost: 127.0.0.1\r\nContent-Type: application/x-ndjson\r\n"
+          + "Transfer-Encoding: chunked\r\n\r\n").getBytes(java.nio.charset.StandardCharsets.US_ASCII));
+      java.io.InputStream in = new java.io.BufferedInputStream(socket.getInputStream());
+      java.io.BufferedReader answers = null;
+      for (int i = 0; i < 3; i++) {
+        byte[] line = ("{\"id\":" + i + ",\"tool\":\"arith\",\"args\":{\"expr\":\"" + (i + 1) + "*1.5\"}}\n")
+            .getBytes(java.nio.charset.StandardCharsets.UTF_8);
+        out.write((Integer.toHexString(line.length) + "\r\n").getBytes(java.nio.charset.StandardCharsets.US_ASCII));
+        out.write(line);
+        out.write("\r\n".getBytes(java.nio.charset.StandardCharsets.US_ASCII));
+        out.flush();
+        if (answers == null) {
+          assertEquals("HTTP/1.1 200 OK", NdjsonStreamTest.ChunkedReader.line(in));
+          while (!NdjsonStreamTest.ChunkedReader.line(in).isEmpty()) {
+            // headers
+          }
+          answers = new java.io.BufferedReader(new java.io.InputStreamReader(new NdjsonStreamTest.ChunkedReader(in),
+              java.nio.charset.StandardCharsets.UTF_8));
+        }
+        JsonNode answer = JSON.readTree(answers.readLine());
+        assertEquals(i, answer.get("id").asInt());
+        assertEquals(new java.math.BigDecimal(i + 1).multiply(new java.math.BigDecimal("1.5")).stripTrailingZeros()
+            .toPlainString(), answer.get("text").asString());
+      }
+      out.write("0\r\n\r\n".getBytes(java.nio.charset.StandardCharsets.US_ASCII));
+      out.flush();
+      assertEquals(null, answers.readLine());
+    }
+  }
 }
