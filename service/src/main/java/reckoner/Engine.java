@@ -39,7 +39,7 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
     LedgerWriter writer = LedgerWriter.start(ledger, LedgerWriter.Settings.defaults().withQueueCapacity(config.ledgerQueue()),
         commits);
     Retention.Policy policy = new Retention.Policy(config.retentionDays() > 0 ? Duration.ofDays(config.retentionDays()) : null,
-        config.retentionMaxRecords());
+        config.retentionMaxRecords(), config.retentionMaxBytes());
     Retention retention = policy.keepsAll() ? null : Retention.start(ledger, policy, clock, Duration.ofMinutes(1));
     InvocationSink sink = new LedgerSink(writer,
         LedgerSink.Durability.parse(config.durability()).orElseThrow(() -> new ConfigException("durability: " + config.durability())));

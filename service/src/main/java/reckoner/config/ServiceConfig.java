@@ -46,12 +46,14 @@ import java.util.TreeSet;
  * @param ledgerQueue records queued for the ledger writer at most
  * @param retentionDays records older than this many days are deleted (0: kept)
  * @param retentionMaxRecords the oldest records beyond this count are deleted (0: no limit)
+ * @param retentionMaxBytes the oldest records are deleted while the ledger's records take more bytes than this (0: no limit)
  */
 public record ServiceConfig(String host, int port, Path dataDir, long maxBodyBytes, boolean openAccess,
     long maxBatchBytes, long cacheSize, int callThreads, String markupOpen, String markupSeparator, String markupClose,
     List<Path> factsDirs, boolean factsDemo, String factsDefaultSet, long factsPollMillis,
     String ledger, String ledgerUrl, String ledgerUser, String ledgerPassword, int ledgerPoolSize, boolean ledgerSync,
-    String durability, int ledgerQueue, long retentionDays, long retentionMaxRecords) {
+    String durability, int ledgerQueue, long retentionDays, long retentionMaxRecords,
+    long retentionMaxBytes) {
   /** Every setting with its default. The README's settings table lists the same. */
   public static final Map<String, String> DEFAULTS = defaults();
 
@@ -84,9 +86,9 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     if (!durability.equals("commit") && !durability.equals("async")) {
       throw new ConfigException("durability must be commit or async but was '" + durability + "'");
     }
-    if (ledgerPoolSize < 1 || ledgerQueue < 1 || retentionDays < 0 || retentionMaxRecords < 0) {
-      throw new ConfigException("ledger-pool-size and ledger-queue must be positive, retention-days and "
-          + "retention-max-records not negative");
+    if (ledgerPoolSize < 1 || ledgerQueue < 1 || retentionDays < 0 || retentionMaxRecords < 0 || retentionMaxBytes < 0) {
+      throw new ConfigException("ledger-pool-size and ledger-queue must be positive, retention-days, "
+          + "retention-max-records and retention-max-bytes not negative");
     }
     if (!openAccess && !isLoopback(host)) {
       throw new ConfigException("refusing to listen on " + host + " without API keys: use a loopback host "
@@ -121,6 +123,7 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     d.put("ledger-queue", "65536");
     d.put("retention-days", "0");
     d.put("retention-max-records", "0");
+    d.put("retention-max-bytes", "0");
     return java.util.Collections.unmodifiableMap(d);
   }
 
@@ -158,7 +161,8 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
         s.get("durability").trim(),
         integer(s, "ledger-queue"),
         longValue(s, "retention-days"),
-        longValue(s, "retention-max-records"));
+        longValue(s, "retention-max-records"),
+        byteSize(s, "retention-max-bytes"));
   }
 
   /**
@@ -221,6 +225,43 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
       return Long.parseLong(s.get(name).trim());
     } catch (NumberFormatException e) {
       throw new ConfigException(name + " must be a whole number but was '" + s.get(name) + "'");
+    }
+  }
+
+  private static final java.util.regex.Pattern BYTE_SIZE =
+      java.util.regex.Pattern.compile("(\\d{1,18})\\s*(?:([kKMGT])(i?)B?|B)?");
+
+  /**
+   * A size in bytes: digits, optionally followed by a decimal prefix ({@code kB}, {@code MB},
+   * {@code GB}, {@code TB}: powers of 1000) or a binary one ({@code KiB}, {@code MiB}, {@code GiB},
+   * {@code TiB}: powers of 1024), as IEC 80000-13 names them; the trailing {@code B} may be left out.
+   */
+  static long byteSize(Map<String, String> s, String name) {
+    String v = s.get(name).trim();
+    java.util.regex.Matcher m = BYTE_SIZE.matcher(v);
+    if (!m.matches()) {
+      throw new ConfigException(name + " must be a number of bytes, such as 500000000, 500MB or 2GiB, but was '" + v + "'");
+    }
+    long n = Long.parseLong(m.group(1));
+    if (m.group(2) == null) {
+      return n;
+    }
+    boolean binary = !m.group(3).isEmpty();
+    if (!binary && m.group(2).equals("K")) {
+      throw new ConfigException(name + ": write kB for 1000 bytes or KiB for 1024, not '" + v + "'");
+    }
+    if (binary && m.group(2).equals("k")) {
+      throw new ConfigException(name + ": write KiB for 1024 bytes, not '" + v + "'");
+    }
+    int power = "kMGT".indexOf(m.group(2).equals("K") ? "k" : m.group(2)) + 1;
+    long unit = 1;
+    for (int i = 0; i < power; i++) {
+      unit *= binary ? 1024 : 1000;
+    }
+    try {
+      return Math.multiplyExact(n, unit);
+    } catch (ArithmeticException e) {
+      throw new ConfigException(name + " is too large: '" + v + "'");
     }
   }
 

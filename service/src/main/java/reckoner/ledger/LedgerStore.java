@@ -73,6 +73,15 @@ public interface LedgerStore extends AutoCloseable {
   /** Deletes at most {@code batch} of the oldest records with ids up to and including {@code id}; returns how many. */
   int deleteThrough(String id, int batch);
 
+  /**
+   * How much the records take now: the bytes of the store's pages that hold records and their
+   * indexes (free space inside the store is not counted), and the number of records.
+   */
+  Footprint footprint();
+
+  /** A store's size: bytes in use and records held. */
+  record Footprint(long bytes, long records) {}
+
   /** Checks that the store takes a write now (a small write in a transaction of its own). */
   void probe();
 

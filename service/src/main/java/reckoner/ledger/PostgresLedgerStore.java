@@ -111,6 +111,30 @@ final class PostgresLedgerStore extends JdbcLedgerStore {
     }
   }
 
+  /**
+   * The table's and its indexes' size ({@code pg_total_relation_size}) in the share that live rows
+   * hold: deleted rows keep their space until a vacuum makes it reusable, and the statistics say how
+   * many there are ({@code pg_stat_user_tables}, updated as transactions end). PostgreSQL
+   * documentation, "Database Object Management Functions" and "The Cumulative Statistics System".
+   */
+  @Override
+  public Footprint footprint() {
+    try (Connection c = pool.getConnection(); Statement st = c.createStatement();
+         ResultSet rs = st.executeQuery("SELECT pg_total_relation_size('invocations'),"
+             + " coalesce((SELECT n_live_tup FROM pg_stat_user_tables WHERE relid = 'invocations'::regclass), 0),"
+             + " coalesce((SELECT n_dead_tup FROM pg_stat_user_tables WHERE relid = 'invocations'::regclass), 0),"
+             + " (SELECT count(*) FROM invocations)")) {
+      rs.next();
+      long total = rs.getLong(1);
+      long live = rs.getLong(2);
+      long dead = rs.getLong(3);
+      long bytes = live + dead > 0 ? Math.round((double) total * live / (live + dead)) : total;
+      return new Footprint(bytes, rs.getLong(4));
+    } catch (SQLException e) {
+      throw failed("could not measure the ledger", e);
+    }
+  }
+
   @Override
   String selectIdColumns() {
     return "id";

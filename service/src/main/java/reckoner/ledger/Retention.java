@@ -14,7 +14,8 @@ import org.slf4j.LoggerFactory;
 
 /**
  * Keeps the ledger within its retention: deletes records older than {@link Policy#maxAge()} and,
- * beyond the newest {@link Policy#maxRecords()}, the oldest. Runs on a thread of its own, and
+ * beyond the newest {@link Policy#maxRecords()} or beyond {@link Policy#maxBytes()} of stored
+ * records, the oldest. Runs on a thread of its own, and
  * deletes in small batches, each its own short transaction with a pause after it, so writers wait
  * at most one batch. Thread-safe.
  */
@@ -29,8 +30,10 @@ public final class Retention implements AutoCloseable {
    *
    * @param maxAge records older than this are deleted; null keeps every age
    * @param maxRecords at most this many of the newest records are kept; 0 keeps every count
+   * @param maxBytes the newest records are kept while they take at most this many bytes in the
+   *     store ({@link LedgerStore#footprint()}); 0 keeps every size
    */
-  public record Policy(Duration maxAge, long maxRecords) {
+  public record Policy(Duration maxAge, long maxRecords, long maxBytes) {
     public Policy {
       if (maxAge != null && (maxAge.isNegative() || maxAge.isZero())) {
         throw new IllegalArgumentException("maxAge must be positive: " + maxAge);
@@ -38,20 +41,27 @@ public final class Retention implements AutoCloseable {
       if (maxRecords < 0) {
         throw new IllegalArgumentException("maxRecords must not be negative: " + maxRecords);
       }
+      if (maxBytes < 0) {
+        throw new IllegalArgumentException("maxBytes must not be negative: " + maxBytes);
+      }
+    }
+
+    public Policy(Duration maxAge, long maxRecords) {
+      this(maxAge, maxRecords, 0);
     }
 
     /** Keep everything. */
     public static Policy keepAll() {
-      return new Policy(null, 0);
+      return new Policy(null, 0, 0);
     }
 
     public boolean keepsAll() {
-      return maxAge == null && maxRecords == 0;
+      return maxAge == null && maxRecords == 0 && maxBytes == 0;
     }
   }
 
-  /** What one pass deleted. */
-  public record Pass(long deletedByAge, long deletedBySize) {}
+  /** What one pass deleted: by age, by count, and by bytes. */
+  public record Pass(long deletedByAge, long deletedBySize, long deletedByBytes) {}
 
   private final LedgerStore store;
   private final Policy policy;
@@ -99,7 +109,19 @@ public final class Retention implements AutoCloseable {
         bySize = inBatches(() -> store.deleteThrough(newest.get(), BATCH));
       }
     }
-    return new Pass(byAge, bySize);
+    long byBytes = 0;
+    if (policy.maxBytes() > 0) {
+      LedgerStore.Footprint f = store.footprint();
+      if (f.bytes() > policy.maxBytes() && f.records() > 0) {
+        // Keep the share of the records that fits, at the mean size of a record now.
+        long keep = (long) Math.floor((double) f.records() * policy.maxBytes() / f.bytes());
+        Optional<String> newest = store.newestBeyond(keep);
+        if (newest.isPresent()) {
+          byBytes = inBatches(() -> store.deleteThrough(newest.get(), BATCH));
+        }
+      }
+    }
+    return new Pass(byAge, bySize, byBytes);
   }
 
   private long inBatches(IntSupplier batch) {
@@ -118,8 +140,9 @@ public final class Retention implements AutoCloseable {
   private void runLogged() {
     try {
       Pass pass = runOnce();
-      if (pass.deletedByAge() + pass.deletedBySize() > 0) {
-        LOG.info("ledger retention deleted {} records by age and {} by count", pass.deletedByAge(), pass.deletedBySize());
+      if (pass.deletedByAge() + pass.deletedBySize() + pass.deletedByBytes() > 0) {
+        LOG.info("ledger retention deleted {} records by age, {} by count and {} by size", pass.deletedByAge(),
+            pass.deletedBySize(), pass.deletedByBytes());
       }
     } catch (RuntimeException e) {
       LOG.warn("ledger retention pass failed; the next pass retries", e); // a failed pass must not end the schedule

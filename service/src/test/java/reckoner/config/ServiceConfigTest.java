@@ -46,6 +46,22 @@ final class ServiceConfigTest {
         assertThrows(ConfigException.class, () -> ServiceConfig.from(Map.of("open-access", "yes"))).getMessage());
   }
 
+  /** Decimal prefixes are powers of 1000 and binary ones powers of 1024 (IEC 80000-13:2008, clause 4). */
+  @org.junit.jupiter.params.ParameterizedTest
+  @org.junit.jupiter.params.provider.CsvSource({
+      "0, 0", "1500000, 1500000", "512B, 512", "20kB, 20000", "20KiB, 20480", "500MB, 500000000",
+      "500 MB, 500000000", "3GB, 3000000000", "3GiB, 3221225472", "2T, 2000000000000", "2TiB, 2199023255552", "7M, 7000000"})
+  void from_retentionMaxBytes_readsDecimalAndBinaryPrefixes(String text, long bytes) {
+    assertEquals(bytes, ServiceConfig.from(Map.of("retention-max-bytes", text)).retentionMaxBytes());
+  }
+
+  @org.junit.jupiter.params.ParameterizedTest
+  @org.junit.jupiter.params.provider.ValueSource(strings = {"", "-5", "5.5GB", "5 GB extra", "5KB", "5kiB", "5PB", "9999999TB", "lots"})
+  void from_retentionMaxBytes_badSize_isRefusedNamingTheSetting(String text) {
+    String message = assertThrows(ConfigException.class, () -> ServiceConfig.from(Map.of("retention-max-bytes", text))).getMessage();
+    assertTrue(message.startsWith("retention-max-bytes"), message);
+  }
+
   @Test
   void from_nonLoopbackHostWithoutOptIn_isRefused() {
     assertTrue(assertThrows(ConfigException.class, () -> ServiceConfig.from(Map.of("host", "0.0.0.0"))).getMessage()

@@ -105,5 +105,10 @@ final class FakeStore implements LedgerStore {
   }
 
   @Override
+  public Footprint footprint() {
+    return new Footprint(0, 0);
+  }
+
+  @Override
   public void close() {}
 }

@@ -389,11 +389,34 @@ abstract class LedgerStoreContract {
     store.append(many);
     Clock clock = Clock.fixed(T0.plusSeconds(2_500), ZoneOffset.UTC);
     Retention.Pass byAge = Retention.manual(store, new Retention.Policy(Duration.ofSeconds(2_000), 0), clock).runOnce();
-    assertEquals(new Retention.Pass(500, 0), byAge);
+    assertEquals(new Retention.Pass(500, 0, 0), byAge);
     Retention.Pass byCount = Retention.manual(store, new Retention.Policy(null, 700), clock).runOnce();
-    assertEquals(new Retention.Pass(0, 1_300), byCount);
+    assertEquals(new Retention.Pass(0, 1_300, 0), byCount);
     assertEquals(700, store.query(admin().withLimit(1000)).invocations().size());
     assertEquals(id(1_800_000, 0), store.query(admin()).invocations().get(0).id());
+  }
+
+  /** Records of one size, half the bytes allowed: about the older half goes, the newest stay. */
+  @Test
+  void retention_byBytes_deletesOldestUntilTheRestFits() {
+    int n = 4_000;
+    List<Invocation> many = new ArrayList<>();
+    for (int i = 0; i < n; i++) {
+      many.add(call(i, 0, HERON).text("0." + "7".repeat(400) + i).build());
+    }
+    store.append(many);
+    LedgerStore.Footprint before = store.footprint();
+    assertEquals(n, before.records());
+    assertTrue(before.bytes() > n * 400L, "at least the texts' bytes: " + before);
+    Retention.Pass pass = Retention.manual(store, new Retention.Policy(null, 0, before.bytes() / 2),
+        Clock.fixed(T0, ZoneOffset.UTC)).runOnce();
+    assertEquals(0, pass.deletedByAge());
+    assertEquals(0, pass.deletedBySize());
+    long kept = n - pass.deletedByBytes();
+    assertTrue(kept >= n * 0.4 && kept <= n * 0.6, "kept " + kept + " of " + n);
+    List<Invocation> left = store.query(admin().withLimit(1)).invocations();
+    assertEquals(id(n - kept, 0), left.get(0).id()); // the oldest left is the first of the newest kept
+    assertEquals(kept, store.footprint().records());
   }
 
   @Test

@@ -147,6 +147,20 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
     assertEquals(List.of(records.get(records.size() - 1)), store.query(admin().withRun("orchard-survey-8")).invocations());
   }
 
+  /** Deleted records' pages return to the free list, and the bytes in use fall with them. */
+  @Test
+  void footprint_afterRetentionByBytes_isWithinTheLimit() {
+    List<Invocation> many = new ArrayList<>();
+    for (int i = 0; i < 4_000; i++) {
+      many.add(call(i, 0, HERON).text("0." + "7".repeat(400) + i).build());
+    }
+    store.append(many);
+    long limit = store.footprint().bytes() / 2;
+    Retention.manual(store, new Retention.Policy(null, 0, limit), java.time.Clock.systemUTC()).runOnce();
+    long after = store.footprint().bytes();
+    assertTrue(after <= limit * 1.1, after + " bytes in use after retention, limit " + limit);
+  }
+
   @Test
   void open_ledgerWrittenByAnotherStore_isRefusedWithReason() {
     IllegalStateException e = assertThrows(IllegalStateException.class, () -> LedgerStore.sqlite(dir));
