@@ -5,6 +5,8 @@
 #   bash load-tests/ledger/run.sh                 # write: 45 s warm-up, 30 s measured
 #   bash load-tests/ledger/run.sh write 45 30
 #   bash load-tests/ledger/run.sh query 10000000  # fills 10 million records, then times each filter
+#   bash load-tests/ledger/run.sh query-postgres 10000000 'jdbc:postgresql://127.0.0.1:55432/scratch?user=postgres'
+#                                                 # the same on PostgreSQL; the database's ledger table is emptied first
 #
 # Everything runs in one JVM against a ledger in a temp dir that is removed afterwards. The load
 # average is printed too: the machine may be shared, and the figures depend on it.

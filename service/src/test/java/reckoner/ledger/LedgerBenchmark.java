@@ -50,9 +50,11 @@ final class LedgerBenchmark {
           new LedgerBenchmark(false).asyncWriter(store, "FULL", false, Integer.parseInt(args[1]), Integer.parseInt(args[2]));
         }
       } else if (mode.equals("query")) {
-        new LedgerBenchmark(false).query(dir, args.length > 1 ? Long.parseLong(args[1]) : 10_000_000L);
+        new LedgerBenchmark(false).query(dir, args.length > 1 ? Long.parseLong(args[1]) : 10_000_000L, null);
+      } else if (mode.equals("query-postgres")) { // a scratch database: its ledger table is emptied first
+        new LedgerBenchmark(false).query(dir, Long.parseLong(args[1]), args[2]);
       } else {
-        System.out.println("usage: LedgerBenchmark write [WARMUP_S MEASURE_S] | query [ROWS]");
+        System.out.println("usage: LedgerBenchmark write [WARMUP_S MEASURE_S] | query [ROWS] | query-postgres ROWS JDBC_URL");
       }
     } finally {
       try (Stream<Path> files = Files.walk(dir)) {
@@ -246,10 +248,18 @@ final class LedgerBenchmark {
 
   // ---- query ----
 
-  void query(Path dir, long rows) throws IOException, java.sql.SQLException {
+  void query(Path dir, long rows, String postgresUrl) throws IOException, java.sql.SQLException {
+    java.util.function.Supplier<LedgerStore> open = postgresUrl == null ? () -> LedgerStore.sqlite(dir)
+        : () -> LedgerStore.postgres(postgresUrl, null, null, 8);
+    if (postgresUrl != null) {
+      try (java.sql.Connection c = java.sql.DriverManager.getConnection(postgresUrl); java.sql.Statement st = c.createStatement()) {
+        open.get().close(); // creates the schema if needed
+        st.execute("TRUNCATE invocations");
+      }
+    }
     long t0 = System.nanoTime();
     String midId;
-    try (LedgerStore store = LedgerStore.sqlite(dir, false);
+    try (LedgerStore store = postgresUrl == null ? LedgerStore.sqlite(dir, false) : open.get();
          LedgerWriter writer = LedgerWriter.start(store)) {
       String mid = null;
       for (long i = 0; i < rows; i++) {
@@ -263,12 +273,19 @@ final class LedgerBenchmark {
       }
       midId = mid;
     }
-    System.out.printf("filled %,d records in %.0f s; file %,d MB%n", rows, (System.nanoTime() - t0) / 1e9,
-        Files.size(dir.resolve("ledger.db")) / 1_000_000);
-    try (LedgerStore store = LedgerStore.sqlite(dir)) {
+    try (LedgerStore store = open.get()) {
+      System.out.printf("filled %,d records in %.0f s; %,d MB in use%n", rows, (System.nanoTime() - t0) / 1e9,
+          store.footprint().bytes() / 1_000_000);
       long o0 = System.nanoTime();
-      ((SqliteLedgerStore) store).optimize(); // what the store's periodic statistics refresh does
-      System.out.printf("statistics refresh (PRAGMA optimize): %.1f s%n", (System.nanoTime() - o0) / 1e9);
+      if (store instanceof SqliteLedgerStore sqlite) {
+        sqlite.optimize(); // what the store's periodic statistics refresh does
+        System.out.printf("statistics refresh (PRAGMA optimize): %.1f s%n", (System.nanoTime() - o0) / 1e9);
+      } else {
+        try (java.sql.Connection c = java.sql.DriverManager.getConnection(postgresUrl); java.sql.Statement st = c.createStatement()) {
+          st.execute("VACUUM ANALYZE invocations"); // what autovacuum does after a large load
+        }
+        System.out.printf("VACUUM ANALYZE: %.1f s%n", (System.nanoTime() - o0) / 1e9);
+      }
       InvocationQuery heron = InvocationQuery.of(Scope.key("key-heron"));
       InvocationQuery all = InvocationQuery.of(Scope.all());
       Invocation sample = store.query(all.withAfter(midId).withLimit(1)).invocations().get(0);
