@@ -176,7 +176,9 @@ abstract class JdbcLedgerStore implements LedgerStore {
               ps.addBatch();
             }
             for (int n : ps.executeBatch()) {
-              inserted += n;
+              // A driver may answer SUCCESS_NO_INFO (-2) for a batched statement; its rows are then taken as
+              // written (PostgreSQL's conflict clause names the whole id, so it only ever skips a replay).
+              inserted += n >= 0 ? n : per;
             }
           }
         }
