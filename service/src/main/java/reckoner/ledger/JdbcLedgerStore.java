@@ -352,13 +352,15 @@ abstract class JdbcLedgerStore implements LedgerStore {
   @Override
   public final InvocationPage query(InvocationQuery query) {
     int size = query.pageSize();
-    Select select = Select.of(this, query, size + 1);
     List<Invocation> rows = new ArrayList<>(Math.min(size + 1, 128));
-    try (Connection c = readPool().getConnection(); PreparedStatement ps = c.prepareStatement(select.sql())) {
-      bindAll(ps, select.parameters());
-      try (ResultSet rs = ps.executeQuery()) {
-        while (rs.next()) {
-          rows.add(row(rs));
+    try (Connection c = readPool().getConnection()) {
+      Select select = Select.of(this, query, size + 1, fewRefMatches(c, query));
+      try (PreparedStatement ps = c.prepareStatement(select.sql())) {
+        bindAll(ps, select.parameters());
+        try (ResultSet rs = ps.executeQuery()) {
+          while (rs.next()) {
+            rows.add(row(rs));
+          }
         }
       }
     } catch (SQLException e) {
@@ -373,9 +375,9 @@ abstract class JdbcLedgerStore implements LedgerStore {
 
   @Override
   public final long forEach(InvocationQuery query, Sink sink) throws IOException {
-    Select select = Select.of(this, query, query.limit() == null ? -1 : query.limit());
     long count = 0;
     try (Connection c = readPool().getConnection()) {
+      Select select = Select.of(this, query, query.limit() == null ? -1 : query.limit(), fewRefMatches(c, query));
       beginStreaming(c);
       try (PreparedStatement ps = c.prepareStatement(select.sql(), ResultSet.TYPE_FORWARD_ONLY, ResultSet.CONCUR_READ_ONLY)) {
         ps.setFetchSize(FETCH_SIZE);
@@ -393,6 +395,34 @@ abstract class JdbcLedgerStore implements LedgerStore {
       throw failed("could not read the ledger", e);
     }
     return count;
+  }
+
+  /**
+   * Rows a {@code ref_prefix} may match for its query to collect them before ordering them. A
+   * planner that cannot see where in id order the matches lie may walk the id order and filter,
+   * which reads most of the ledger when the matches are few and late; collecting up to this many
+   * and sorting them costs tens of milliseconds at most.
+   */
+  static final int FEW_REF_MATCHES = 50_000;
+
+  /** Whether this backend counts a prefix's matches first (see {@link #fewRefMatches}). */
+  boolean countsRefMatches() {
+    return false;
+  }
+
+  /** Whether {@code query} has a {@code ref_prefix} that matches at most {@link #FEW_REF_MATCHES} rows (a bounded count on the ref index). */
+  private boolean fewRefMatches(Connection c, InvocationQuery query) throws SQLException {
+    if (query.refPrefix() == null || !countsRefMatches()) {
+      return false;
+    }
+    Select probe = Select.refRange(query.refPrefix(), FEW_REF_MATCHES + 1);
+    try (PreparedStatement ps = c.prepareStatement(probe.sql())) {
+      bindAll(ps, probe.parameters());
+      try (ResultSet rs = ps.executeQuery()) {
+        rs.next();
+        return rs.getLong(1) <= FEW_REF_MATCHES;
+      }
+    }
   }
 
   private Invocation row(ResultSet rs) throws SQLException {

@@ -135,6 +135,16 @@ final class PostgresLedgerStore extends JdbcLedgerStore {
     }
   }
 
+  /**
+   * PostgreSQL's planner estimates a prefix's matches as spread evenly over the id order, and then
+   * prefers walking the primary key in order to sorting: measured at 10 million rows
+   * (load-tests/ledger), a prefix matching 40,000 late rows took 0.7 s that way.
+   */
+  @Override
+  boolean countsRefMatches() {
+    return true;
+  }
+
   @Override
   String selectIdColumns() {
     return "id";

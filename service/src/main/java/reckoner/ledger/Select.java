@@ -12,9 +12,31 @@ import java.util.UUID;
  * returns (plus the ones a second filter skips).
  */
 record Select(String sql, List<Object> parameters) {
+  /** The terms of a {@code ref_prefix} alone, for counting its matches. */
+  static Select refRange(String prefix, int limit) {
+    List<Object> params = new ArrayList<>();
+    params.add(prefix);
+    String sql = "SELECT count(*) FROM (SELECT 1 FROM invocations WHERE ref >= ?";
+    Optional<String> end = IdBounds.prefixEnd(prefix);
+    if (end.isPresent()) {
+      sql += " AND ref < ?";
+      params.add(end.get());
+    }
+    params.add(limit);
+    return new Select(sql + " LIMIT ?) AS m", List.copyOf(params));
+  }
 
   /** The query's SELECT for {@code store}, in id order, with at most {@code limit} rows ({@code -1}: no limit). */
   static Select of(JdbcLedgerStore store, InvocationQuery q, int limit) {
+    return of(store, q, limit, false);
+  }
+
+  /**
+   * As {@link #of(JdbcLedgerStore, InvocationQuery, int)}; with {@code matchesFirst}, the matching
+   * rows are collected before they are ordered ({@code WITH ... AS MATERIALIZED}), so the planner
+   * cannot walk the id order instead and filter: for a filter known to match few rows.
+   */
+  static Select of(JdbcLedgerStore store, InvocationQuery q, int limit, boolean matchesFirst) {
     List<String> terms = new ArrayList<>();
     List<Object> params = new ArrayList<>();
     if (!q.scope().isAll()) {
@@ -71,6 +93,9 @@ record Select(String sql, List<Object> parameters) {
         .append(JdbcLedgerStore.FIELDS).append(" FROM invocations");
     if (!terms.isEmpty()) {
       sql.append(" WHERE ").append(String.join(" AND ", terms));
+    }
+    if (matchesFirst) {
+      sql.insert(0, "WITH matches AS MATERIALIZED (").append(") SELECT * FROM matches");
     }
     sql.append(" ORDER BY ").append(store.idOrder());
     if (limit >= 0) {
