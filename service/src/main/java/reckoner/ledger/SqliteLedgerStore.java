@@ -128,31 +128,28 @@ final class SqliteLedgerStore extends JdbcLedgerStore {
    * only does real work when the table has grown about tenfold since the last run.
    */
   void optimize() throws SQLException {
-    writeLock.lock();
+    onWriter("PRAGMA optimize=0x10002");
+  }
+
+  /** Rebuilds the file without free pages ({@code VACUUM}). */
+  private void compact() {
     try {
-      if (writer == null) {
-        writer = writeConfig.createConnection(url(file));
-      }
-      try (Statement st = writer.createStatement()) {
-        st.execute("PRAGMA optimize=0x10002");
-      }
-    } finally {
-      writeLock.unlock();
+      onWriter("VACUUM");
+    } catch (SQLException e) {
+      throw failed("could not compact the ledger after migrating it", e);
     }
   }
 
-  /** Rebuilds the file without free pages ({@code VACUUM}), holding the write lock. */
-  private void compact() {
+  /** Runs one statement outside a transaction on the writer's connection, holding the write lock. */
+  private void onWriter(String sql) throws SQLException {
     writeLock.lock();
     try {
       if (writer == null) {
         writer = writeConfig.createConnection(url(file));
       }
       try (Statement st = writer.createStatement()) {
-        st.execute("VACUUM");
+        st.execute(sql);
       }
-    } catch (SQLException e) {
-      throw failed("could not compact the ledger after migrating it", e);
     } finally {
       writeLock.unlock();
     }
