@@ -49,6 +49,7 @@ public final class HttpApi {
 
     return Javalin.create(config -> {
       config.startup.showJavalinBanner = false;
+      config.events.serverStopped(status::stop);
       config.http.maxRequestSize = Math.max(settings.maxBodyBytes(), settings.maxBatchBytes());
       config.http.prefer405over404 = true;
       config.router.ignoreTrailingSlashes = true;

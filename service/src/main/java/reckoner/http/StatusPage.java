@@ -16,7 +16,8 @@ import tools.jackson.databind.node.ObjectNode;
  * {@code GET /status}: a small live page for ops, per tool version: calls per second and errors
  * per second over the last minute, totals, and call time p50 / p99. HTML that refreshes itself,
  * or JSON with {@code Accept: application/json}. Rates come from snapshots taken every five seconds
- * by a daemon thread (and when the page is read), kept for a minute. Thread-safe.
+ * by a daemon thread (and when the page is read), kept for a minute; the thread ends with
+ * {@link #stop()}, which the server calls when it stops. Thread-safe.
  */
 final class StatusPage {
   private record Sample(long atMillis, Map<String, long[]> totals) {}
@@ -25,17 +26,23 @@ final class StatusPage {
   private final Responses responses;
   private final Clock clock;
   private final Deque<Sample> samples = new ArrayDeque<>();
+  private final java.util.concurrent.ScheduledExecutorService sampler;
 
   StatusPage(CallMetrics metrics, Responses responses, Clock clock) {
     this.metrics = metrics;
     this.responses = responses;
     this.clock = clock;
-    java.util.concurrent.ScheduledExecutorService sampler = java.util.concurrent.Executors.newSingleThreadScheduledExecutor(r -> {
+    this.sampler = java.util.concurrent.Executors.newSingleThreadScheduledExecutor(r -> {
       Thread t = new Thread(r, "reckoner-status-sampler");
       t.setDaemon(true);
       return t;
     });
     sampler.scheduleAtFixedRate(() -> rates(metrics.snapshot()), 0, 5, java.util.concurrent.TimeUnit.SECONDS);
+  }
+
+  /** Ends the sampling thread; the page still answers, from snapshots taken when it is read. */
+  void stop() {
+    sampler.shutdownNow();
   }
 
   void show(Context ctx) {

@@ -45,4 +45,23 @@ final class StatusPageTest {
         .body(containsString("reckoner_call_duration_seconds_bucket"))
         .body(containsString("cache_gets_total"));
   }
+
+  /** The sampling thread ends with the server: no idle thread is left per server started. */
+  @Test
+  void serverStopped_endsTheSamplingThread() throws InterruptedException {
+    long before = samplerThreads();
+    TestServer other = TestServer.start();
+    org.junit.jupiter.api.Assertions.assertEquals(before + 1, samplerThreads());
+    other.close();
+    long deadline = System.nanoTime() + java.util.concurrent.TimeUnit.SECONDS.toNanos(10);
+    while (samplerThreads() > before && System.nanoTime() < deadline) {
+      Thread.sleep(10);
+    }
+    org.junit.jupiter.api.Assertions.assertEquals(before, samplerThreads());
+  }
+
+  private static long samplerThreads() {
+    return Thread.getAllStackTraces().keySet().stream()
+        .filter(t -> t.isAlive() && t.getName().equals("reckoner-status-sampler")).count();
+  }
 }
