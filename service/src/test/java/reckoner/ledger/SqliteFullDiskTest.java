@@ -37,7 +37,7 @@ final class SqliteFullDiskTest {
       store.limitPages(store.pageCount());
       List<Invocation> big = new ArrayList<>();
       for (int i = 1; i <= 200; i++) {
-        big.add(call(i, 0, HERON).text("x".repeat(5000)).build()); // each needs a page of its own
+        big.add(call(i, 0, HERON).text("x".repeat(20_000)).build()); // each needs pages of its own
       }
       ExecutionException e = assertThrows(ExecutionException.class,
           () -> writer.append(big.get(0)).get(10, TimeUnit.SECONDS));

@@ -46,6 +46,10 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
         rs.next();
         assertEquals("wal", rs.getString(1));
       }
+      try (ResultSet rs = st.executeQuery("PRAGMA page_size")) { // set before WAL mode, or it stays 4096
+        rs.next();
+        assertEquals(8192, rs.getInt(1));
+      }
       try (ResultSet rs = st.executeQuery("SELECT version FROM ledger_schema")) {
         assertTrue(rs.next());
         assertEquals(2, rs.getInt(1));
