@@ -18,5 +18,5 @@ if [ ${#need[@]} -gt 0 ]; then
   $sudo_cmd apt-get update -qq
   DEBIAN_FRONTEND=noninteractive $sudo_cmd apt-get install -y -qq "${need[@]}" >/dev/null
 fi
-java -version 2>&1 | head -1
-mvn -version 2>&1 | head -1
+java -version 2>&1 | sed -n 1p  # sed reads to the end: head would close the pipe early, and pipefail would fail the script
+mvn -version 2>&1 | sed -n 1p
