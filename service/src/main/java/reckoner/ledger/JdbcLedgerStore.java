@@ -21,9 +21,10 @@ import javax.sql.DataSource;
  * keeps an id (and how ids compare there), where writes run, and how a forward-only read is set up.
  */
 abstract class JdbcLedgerStore implements LedgerStore {
-  /** The columns after the id's, in the order inserts bind and selects read them. */
-  static final String FIELDS = "key_id, run, ref, tool, version, args, text, outcome, cached, elapsed_us, data_version, as_of";
-  private static final int FIELD_COUNT = 12;
+  /** The columns after the id's and the names', in the order inserts bind and selects read them. */
+  static final String FIELDS = "ref, version, args, text, outcome, cached, elapsed_us, data_version, as_of";
+  private static final int FIELD_COUNT = 9;
+  private static final int NAME_COUNT = 3;
   /** Rows fetched per round trip when streaming. */
   static final int FETCH_SIZE = 500;
   private static final int PROBE_BYTES = 8192;
@@ -81,6 +82,32 @@ abstract class JdbcLedgerStore implements LedgerStore {
 
   /** What an INSERT does with a row whose key is already there (a replayed record). */
   abstract String onConflict();
+
+  // ---- how a backend keeps names ----
+
+  /** The three names of a record, which repeat from record to record: a backend may number them. */
+  enum Name {
+    KEY,
+    RUN,
+    TOOL
+  }
+
+  /** The columns an INSERT writes the names to, after the id's: key, run, tool. */
+  abstract String insertNameColumns();
+
+  /** The expressions a SELECT reads the names from as text, after the id's: key, run, tool. */
+  abstract String selectNameColumns();
+
+  /** A sargable term matching the records whose {@code name} is the one parameter it takes (a string). */
+  abstract String nameTerm(Name name);
+
+  /** Readies the names of {@code invocations} for {@link #bindName}, inside the write transaction. */
+  void prepareNames(Connection c, List<Invocation> invocations) throws SQLException {}
+
+  /** Binds one name of a record ({@code null} for a record without a run). */
+  void bindName(PreparedStatement ps, int index, Name name, String value) throws SQLException {
+    ps.setString(index, value);
+  }
 
   /** Binds a {@link UUID} parameter of a term. */
   void bindId(PreparedStatement ps, int index, UUID id) throws SQLException {
@@ -163,9 +190,10 @@ abstract class JdbcLedgerStore implements LedgerStore {
     int per = rowsPerStatement();
     int whole = invocations.size() / per;
     int rest = invocations.size() % per;
-    int width = insertIdCount() + FIELD_COUNT;
+    int width = insertIdCount() + NAME_COUNT + FIELD_COUNT;
     try {
       inWriteTransaction(c -> {
+        prepareNames(c, invocations);
         long inserted = 0;
         if (whole > 0) {
           try (PreparedStatement ps = c.prepareStatement(insert(per))) {
@@ -247,10 +275,10 @@ abstract class JdbcLedgerStore implements LedgerStore {
   }
 
   private String insert(int rows) {
-    int width = insertIdCount() + FIELD_COUNT;
+    int width = insertIdCount() + NAME_COUNT + FIELD_COUNT;
     String row = "(" + "?, ".repeat(width - 1) + "?)";
     StringBuilder sql = new StringBuilder("INSERT INTO invocations (").append(insertIdColumns()).append(", ")
-        .append(FIELDS).append(") VALUES ");
+        .append(insertNameColumns()).append(", ").append(FIELDS).append(") VALUES ");
     for (int r = 0; r < rows; r++) {
       sql.append(r == 0 ? "" : ", ").append(row);
     }
@@ -260,10 +288,10 @@ abstract class JdbcLedgerStore implements LedgerStore {
   private void bindRow(PreparedStatement ps, int at, Invocation inv) throws SQLException {
     bindInsertId(ps, at + 1, IdBounds.parse(inv.id()));
     at += insertIdCount();
-    ps.setString(at + 1, inv.keyId());
-    ps.setString(at + 2, inv.run());
-    ps.setString(at + 3, inv.ref());
-    ps.setString(at + 4, inv.tool());
+    bindName(ps, at + 1, Name.KEY, inv.keyId());
+    bindName(ps, at + 2, Name.RUN, inv.run());
+    bindName(ps, at + 3, Name.TOOL, inv.tool());
+    ps.setString(at + 4, inv.ref());
     if (inv.version() == null) {
       ps.setNull(at + 5, java.sql.Types.INTEGER);
     } else {
@@ -429,8 +457,8 @@ abstract class JdbcLedgerStore implements LedgerStore {
     int at = selectIdCount();
     int version = rs.getInt(at + 5);
     Integer v = rs.wasNull() ? null : version;
-    return new Invocation(readId(rs, 1).toString(), rs.getString(at + 1), rs.getString(at + 2), rs.getString(at + 3),
-        rs.getString(at + 4), v, rs.getString(at + 6), rs.getString(at + 7), rs.getString(at + 8), rs.getBoolean(at + 9),
+    return new Invocation(readId(rs, 1).toString(), rs.getString(at + 1), rs.getString(at + 2), rs.getString(at + 4),
+        rs.getString(at + 3), v, rs.getString(at + 6), rs.getString(at + 7), rs.getString(at + 8), rs.getBoolean(at + 9),
         rs.getLong(at + 10), rs.getString(at + 11), rs.getString(at + 12));
   }
 

@@ -201,6 +201,26 @@ final class PostgresLedgerStore extends JdbcLedgerStore {
     return " ON CONFLICT (id) DO NOTHING";
   }
 
+  /** Names are kept as text here: replicas share the table, and a shared dictionary would be one more contended write. */
+  @Override
+  String insertNameColumns() {
+    return "key_id, run, tool";
+  }
+
+  @Override
+  String selectNameColumns() {
+    return "key_id, run, tool";
+  }
+
+  @Override
+  String nameTerm(Name name) {
+    return switch (name) {
+      case KEY -> "key_id = ?";
+      case RUN -> "run = ?";
+      case TOOL -> "tool = ?";
+    };
+  }
+
   @Override
   List<List<String>> migrations() {
     return List.of(List.of(

@@ -40,15 +40,15 @@ record Select(String sql, List<Object> parameters) {
     List<String> terms = new ArrayList<>();
     List<Object> params = new ArrayList<>();
     if (!q.scope().isAll()) {
-      terms.add("key_id = ?");
+      terms.add(store.nameTerm(JdbcLedgerStore.Name.KEY));
       params.add(q.scope().keyId());
     }
     if (q.run() != null) {
-      terms.add("run = ?");
+      terms.add(store.nameTerm(JdbcLedgerStore.Name.RUN));
       params.add(q.run());
     }
     if (q.tool() != null) {
-      terms.add("tool = ?");
+      terms.add(store.nameTerm(JdbcLedgerStore.Name.TOOL));
       params.add(q.tool());
     }
     if (q.version() != null) {
@@ -90,7 +90,7 @@ record Select(String sql, List<Object> parameters) {
       store.idTerm(JdbcLedgerStore.IdOp.ABOVE, UUID.fromString(q.after()), terms, params);
     }
     StringBuilder sql = new StringBuilder("SELECT ").append(store.selectIdColumns()).append(", ")
-        .append(JdbcLedgerStore.FIELDS).append(" FROM invocations");
+        .append(store.selectNameColumns()).append(", ").append(JdbcLedgerStore.FIELDS).append(" FROM invocations");
     if (!terms.isEmpty()) {
       sql.append(" WHERE ").append(String.join(" AND ", terms));
     }

@@ -12,7 +12,9 @@ import java.sql.ResultSet;
 import java.sql.SQLException;
 import java.sql.Statement;
 import java.time.Duration;
+import java.util.HashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.UUID;
 import java.util.concurrent.Executors;
 import java.util.concurrent.ScheduledExecutorService;
@@ -35,8 +37,15 @@ import org.sqlite.SQLiteDataSource;
  * each of its values at no cost, and each insert appends at the end of the table. This needs the high
  * halves to be unique, which holds for ids from one generator (its counter makes them strictly
  * increasing); so one process at a time may write a ledger file (a lock file next to it says which),
- * and the service starts its generator after the newest id in the file. The view
- * {@code invocation_records} shows ids and times as text, for readers of the file.
+ * and the service starts its generator after the newest id in the file.
+ *
+ * <p>Keys, runs and tools repeat from record to record, so each row keeps them as numbers of a
+ * dictionary, {@code ledger_names} ({@code key_n}, {@code run_n}, {@code tool_n}): the row and its
+ * key, run and tool index entries are about a quarter smaller, and the writer, which is what
+ * limits the ledger's rate, does that much less work per record (load-tests/ledger). The writer
+ * keeps a copy of the dictionary and adds new names in the transaction of the batch that brings
+ * them; names stay when their records are deleted. Reads turn numbers back into names in SQL.
+ * The view {@code invocation_records} shows ids, times and names as text, for readers of the file.
  */
 final class SqliteLedgerStore extends JdbcLedgerStore {
   static final String FILE_NAME = "ledger.db";
@@ -52,6 +61,8 @@ final class SqliteLedgerStore extends JdbcLedgerStore {
   private static final int PAGE_SIZE = 8192;
   /** How often the planner's statistics are checked for staleness. */
   private static final Duration OPTIMIZE_EVERY = Duration.ofMinutes(5);
+  /** Names the writer keeps numbers of; beyond this the copy starts again from the file. */
+  private static final int NAMES_KEPT = 100_000;
   private static final Logger LOG = LoggerFactory.getLogger(SqliteLedgerStore.class);
 
   /** When a commit reaches the disk. */
@@ -69,6 +80,11 @@ final class SqliteLedgerStore extends JdbcLedgerStore {
   private final ReentrantLock writeLock = new ReentrantLock();
   private final ScheduledExecutorService maintenance;
   private Connection writer; // guarded by writeLock; reopened after a failure
+  /**
+   * The writer's copy of the dictionary of names, guarded by writeLock: only committed names once
+   * a transaction ends (cleared when one fails, since the names it added are gone).
+   */
+  private final Map<String, Long> names = new HashMap<>();
   private int pageLimit; // guarded by writeLock; 0 = SQLite's own limit
 
   private SqliteLedgerStore(Path file, Sync sync, WriterLock lock) {
@@ -229,6 +245,7 @@ final class SqliteLedgerStore extends JdbcLedgerStore {
   }
 
   private void discardWriter() {
+    names.clear();
     try {
       writer.rollback();
     } catch (SQLException ignored) {
@@ -441,7 +458,136 @@ final class SqliteLedgerStore extends JdbcLedgerStore {
                 + " (id_lo >> 48) & 0xffff, id_lo & 0xffffffffffff) AS id,"
                 + " strftime('%Y-%m-%dT%H:%M:%fZ', (seq >> 16) / 1000.0, 'unixepoch') AS ts,"
                 + " key_id, run, ref, tool, version, args, text, outcome, cached, elapsed_us, data_version, as_of"
-                + " FROM invocations"));
+                + " FROM invocations"),
+        // Version 3: keys, runs and tools become numbers of one dictionary of names (see the class
+        // comment); the rows and the key, run and tool indexes carry small integers, not strings.
+        List.of(
+            "CREATE TABLE ledger_names (n INTEGER PRIMARY KEY, name TEXT NOT NULL UNIQUE)",
+            "INSERT INTO ledger_names (name) SELECT key_id FROM invocations UNION SELECT run FROM invocations"
+                + " WHERE run IS NOT NULL UNION SELECT tool FROM invocations",
+            "CREATE TABLE invocations_3 ("
+                + " seq INTEGER PRIMARY KEY, id_lo INTEGER NOT NULL,"
+                + " key_n INTEGER NOT NULL REFERENCES ledger_names (n), run_n INTEGER REFERENCES ledger_names (n),"
+                + " ref TEXT, tool_n INTEGER NOT NULL REFERENCES ledger_names (n), version INTEGER,"
+                + " args TEXT, text TEXT NOT NULL, outcome TEXT NOT NULL, cached INTEGER NOT NULL,"
+                + " elapsed_us INTEGER NOT NULL, data_version TEXT, as_of TEXT)",
+            "INSERT INTO invocations_3 SELECT i.seq, i.id_lo, k.n, r.n, i.ref, t.n, i.version, i.args, i.text, i.outcome,"
+                + " i.cached, i.elapsed_us, i.data_version, i.as_of FROM invocations i"
+                + " JOIN ledger_names k ON k.name = i.key_id LEFT JOIN ledger_names r ON r.name = i.run"
+                + " JOIN ledger_names t ON t.name = i.tool ORDER BY i.seq",
+            "DROP VIEW invocation_records",
+            "DROP TABLE invocations",
+            "ALTER TABLE invocations_3 RENAME TO invocations",
+            "CREATE INDEX invocations_by_key ON invocations (key_n)",
+            "CREATE INDEX invocations_by_run ON invocations (run_n) WHERE run_n IS NOT NULL",
+            "CREATE INDEX invocations_by_tool ON invocations (tool_n)",
+            "CREATE INDEX invocations_by_error ON invocations (outcome) WHERE outcome <> 'ok'",
+            "CREATE INDEX invocations_errors ON invocations (seq) WHERE outcome <> 'ok'",
+            "CREATE INDEX invocations_by_ref ON invocations (ref) WHERE ref IS NOT NULL",
+            "CREATE VIEW invocation_records AS SELECT"
+                + " printf('%08x-%04x-%04x-%04x-%012x', (i.seq >> 32) & 0xffffffff, (i.seq >> 16) & 0xffff, i.seq & 0xffff,"
+                + " (i.id_lo >> 48) & 0xffff, i.id_lo & 0xffffffffffff) AS id,"
+                + " strftime('%Y-%m-%dT%H:%M:%fZ', (i.seq >> 16) / 1000.0, 'unixepoch') AS ts,"
+                + " k.name AS key_id, r.name AS run, i.ref, t.name AS tool, i.version, i.args, i.text, i.outcome, i.cached,"
+                + " i.elapsed_us, i.data_version, i.as_of FROM invocations i"
+                + " JOIN ledger_names k ON k.n = i.key_n LEFT JOIN ledger_names r ON r.n = i.run_n"
+                + " JOIN ledger_names t ON t.n = i.tool_n"));
+  }
+
+  // ---- names ----
+
+  @Override
+  String insertNameColumns() {
+    return "key_n, run_n, tool_n";
+  }
+
+  @Override
+  String selectNameColumns() {
+    return "(SELECT name FROM ledger_names WHERE n = key_n), (SELECT name FROM ledger_names WHERE n = run_n),"
+        + " (SELECT name FROM ledger_names WHERE n = tool_n)";
+  }
+
+  /** A name not in the dictionary makes the subquery NULL, which matches no record. */
+  @Override
+  String nameTerm(Name name) {
+    return column(name) + " = (SELECT n FROM ledger_names WHERE name = ?)";
+  }
+
+  private static String column(Name name) {
+    return switch (name) {
+      case KEY -> "key_n";
+      case RUN -> "run_n";
+      case TOOL -> "tool_n";
+    };
+  }
+
+  /**
+   * Finds the number of each name the batch carries, first in the writer's copy of the dictionary,
+   * then in the file, and adds the names that are new, in the batch's own transaction.
+   */
+  @Override
+  void prepareNames(Connection c, List<Invocation> invocations) throws SQLException {
+    if (names.size() > NAMES_KEPT) {
+      names.clear(); // a ledger of very many runs: keep the copy bounded, the file has them all
+    }
+    try (NameLookup lookup = new NameLookup(c)) {
+      for (Invocation inv : invocations) {
+        lookup.resolve(inv.keyId());
+        lookup.resolve(inv.run());
+        lookup.resolve(inv.tool());
+      }
+    }
+  }
+
+  @Override
+  void bindName(PreparedStatement ps, int index, Name name, String value) throws SQLException {
+    if (value == null) {
+      ps.setNull(index, java.sql.Types.INTEGER);
+    } else {
+      ps.setLong(index, names.get(value)); // present: prepareNames ran in this transaction
+    }
+  }
+
+  /** The statements that look names up and add them, prepared only when a name is not in the copy. */
+  private final class NameLookup implements AutoCloseable {
+    private final Connection c;
+    private PreparedStatement find;
+    private PreparedStatement add;
+
+    NameLookup(Connection c) {
+      this.c = c;
+    }
+
+    void resolve(String name) throws SQLException {
+      if (name == null || names.containsKey(name)) {
+        return;
+      }
+      if (find == null) {
+        find = c.prepareStatement("SELECT n FROM ledger_names WHERE name = ?");
+        add = c.prepareStatement("INSERT INTO ledger_names (name) VALUES (?)");
+      }
+      find.setString(1, name);
+      try (ResultSet rs = find.executeQuery()) {
+        if (rs.next()) {
+          names.put(name, rs.getLong(1));
+          return;
+        }
+      }
+      add.setString(1, name);
+      add.executeUpdate();
+      try (ResultSet rs = find.executeQuery()) {
+        rs.next();
+        names.put(name, rs.getLong(1));
+      }
+    }
+
+    @Override
+    public void close() throws SQLException {
+      if (find != null) {
+        find.close();
+        add.close();
+      }
+    }
   }
 
   /** {@code reckoner_id_high(blob)} and {@code reckoner_id_low(blob)}: the halves of a 16-byte id. */

@@ -40,7 +40,7 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
   }
 
   @Test
-  void open_newDataDir_createsWalFileWithSchemaVersion2() throws Exception {
+  void open_newDataDir_createsWalFileWithSchemaVersion3() throws Exception {
     try (Connection c = raw(); Statement st = c.createStatement()) {
       try (ResultSet rs = st.executeQuery("PRAGMA journal_mode")) {
         rs.next();
@@ -52,11 +52,11 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
       }
       try (ResultSet rs = st.executeQuery("SELECT version FROM ledger_schema")) {
         assertTrue(rs.next());
-        assertEquals(2, rs.getInt(1));
+        assertEquals(3, rs.getInt(1));
         assertFalse(rs.next());
       }
     }
-    assertEquals(2, ((SqliteLedgerStore) store).schemaVersion());
+    assertEquals(3, ((SqliteLedgerStore) store).schemaVersion());
   }
 
   @Test
@@ -75,7 +75,7 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
       st.execute("UPDATE ledger_schema SET version = 9");
     }
     IllegalStateException e = assertThrows(IllegalStateException.class, () -> LedgerStore.sqlite(dir));
-    assertEquals("the ledger's schema is version 9 but this build knows up to 2; run a build at least as new as the one that wrote it",
+    assertEquals("the ledger's schema is version 9 but this build knows up to 3; run a build at least as new as the one that wrote it",
         e.getMessage());
   }
 
@@ -144,11 +144,106 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
       }
     }
     store = LedgerStore.sqlite(dir);
-    assertEquals(2, ((SqliteLedgerStore) store).schemaVersion());
+    assertEquals(3, ((SqliteLedgerStore) store).schemaVersion());
     List<Invocation> expected = new ArrayList<>(records);
     expected.sort(BY_ID);
     assertEquals(expected, store.query(admin()).invocations());
     assertEquals(List.of(records.get(records.size() - 1)), store.query(admin().withRun("orchard-survey-8")).invocations());
+  }
+
+  /**
+   * A file written by the second schema (names as text in every row) is migrated in place: every
+   * record kept with its names, each name once in the dictionary, the view still readable.
+   */
+  @Test
+  void open_versionTwoFile_numbersTheNamesAndKeepsEveryRecord() throws Exception {
+    SqliteLedgerStore current = (SqliteLedgerStore) store;
+    List<List<String>> steps = current.migrations();
+    store.close();
+    store = null;
+    for (String suffix : new String[] {"", "-wal", "-shm"}) {
+      java.nio.file.Files.deleteIfExists(dir.resolve("ledger.db" + suffix));
+    }
+    List<Invocation> records = new ArrayList<>(sample());
+    records.add(call(9, 3, HERON).run("orchard-survey-8").dataVersion("a1b2c3").asOf("2031-05-17T00:00:00Z").build());
+    records.add(call(10, 0, "key-otter").run("orchard-survey-8").tool("units").build());
+    try (Connection c = raw(); Statement st = c.createStatement()) {
+      st.execute("CREATE TABLE ledger_schema (version INTEGER NOT NULL)");
+      st.execute("INSERT INTO ledger_schema VALUES (2)");
+      current.prepareMigration(c); // the functions the second step uses
+      for (String sql : steps.get(0)) {
+        st.execute(sql);
+      }
+      for (String sql : steps.get(1)) {
+        st.execute(sql);
+      }
+      try (PreparedStatement ps = c.prepareStatement("INSERT INTO invocations (seq, id_lo, key_id, run, ref, tool, version,"
+          + " args, text, outcome, cached, elapsed_us, data_version, as_of) VALUES (?,?,?,?,?,?,?,?,?,?,?,?,?,?)")) {
+        for (Invocation inv : records) {
+          UUID id = UUID.fromString(inv.id());
+          ps.setLong(1, id.getMostSignificantBits());
+          ps.setLong(2, id.getLeastSignificantBits());
+          ps.setString(3, inv.keyId());
+          ps.setString(4, inv.run());
+          ps.setString(5, inv.ref());
+          ps.setString(6, inv.tool());
+          ps.setObject(7, inv.version());
+          ps.setString(8, inv.args());
+          ps.setString(9, inv.text());
+          ps.setString(10, inv.outcome());
+          ps.setBoolean(11, inv.cached());
+          ps.setLong(12, inv.elapsedUs());
+          ps.setString(13, inv.dataVersion());
+          ps.setString(14, inv.asOf());
+          ps.executeUpdate();
+        }
+      }
+    }
+    store = LedgerStore.sqlite(dir);
+    assertEquals(3, ((SqliteLedgerStore) store).schemaVersion());
+    List<Invocation> expected = new ArrayList<>(records);
+    expected.sort(BY_ID);
+    assertEquals(expected, store.query(admin()).invocations());
+    assertEquals(List.of(records.get(records.size() - 2)),
+        store.query(InvocationQuery.of(Scope.key(HERON)).withRun("orchard-survey-8")).invocations());
+    assertEquals(List.of(records.get(records.size() - 1)), store.query(admin().withTool("units")).invocations());
+    try (Connection c = raw(); Statement st = c.createStatement()) {
+      try (ResultSet rs = st.executeQuery("SELECT count(*), count(DISTINCT name) FROM ledger_names WHERE name = 'orchard-survey-8'")) {
+        rs.next();
+        assertEquals(1, rs.getInt(1));
+      }
+      try (ResultSet rs = st.executeQuery("SELECT key_id, run, tool FROM invocation_records ORDER BY id DESC LIMIT 1")) {
+        rs.next();
+        assertEquals("key-otter", rs.getString(1));
+        assertEquals("orchard-survey-8", rs.getString(2));
+        assertEquals("units", rs.getString(3));
+      }
+    }
+  }
+
+  /**
+   * Names a failed batch added to the dictionary go with its transaction, and the writer's copy of
+   * the dictionary forgets them too: a later record with the same name gets a number in the file.
+   */
+  @Test
+  void append_failedBatchWithNewNames_leavesNoNumberBehind() throws Exception {
+    Invocation first = call(0, 0, HERON).build();
+    store.append(List.of(first));
+    UUID id = UUID.fromString(first.id());
+    String clash = new UUID(id.getMostSignificantBits(), id.getLeastSignificantBits() + 1).toString();
+    Invocation other = Invocation.builder(clash).keyId("key-wren").tool("arith").text("0.5").build();
+    Invocation fresh = call(5, 0, HERON).run("orchard-survey-9").tool("dates").build();
+    assertThrows(IllegalStateException.class, () -> store.append(List.of(fresh, other)));
+    try (Connection c = raw(); Statement st = c.createStatement();
+         ResultSet rs = st.executeQuery("SELECT count(*) FROM ledger_names WHERE name IN ('orchard-survey-9', 'key-wren', 'dates')")) {
+      rs.next();
+      assertEquals(0, rs.getInt(1));
+    }
+    Invocation later = call(6, 0, "key-wren").run("orchard-survey-9").tool("dates").build();
+    store.append(List.of(later));
+    assertEquals(List.of(later), store.query(admin().withRun("orchard-survey-9")).invocations());
+    assertEquals(List.of(later), store.query(InvocationQuery.of(Scope.key("key-wren"))).invocations());
+    assertEquals(List.of(), store.query(InvocationQuery.of(Scope.key("key-kestrel"))).invocations()); // a name never written
   }
 
   /** Deleted records' pages return to the free list, and the bytes in use fall with them. */
@@ -234,7 +329,12 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
       StringBuilder sb = new StringBuilder();
       try (ResultSet rs = ps.executeQuery()) {
         while (rs.next()) {
-          sb.append(rs.getString("detail")).append('\n');
+          String detail = rs.getString("detail");
+          if (detail.contains("ledger_names")) { // the subqueries that turn names into numbers and back
+            assertTrue(detail.startsWith("SEARCH ledger_names USING"), detail);
+          } else if (!detail.contains("SCALAR SUBQUERY")) {
+            sb.append(detail).append('\n');
+          }
         }
       }
       plan = sb.toString();
