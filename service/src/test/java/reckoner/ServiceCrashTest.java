@@ -85,6 +85,7 @@ final class ServiceCrashTest {
       acknowledged.addAll(acks);
       LedgerCheck.Report report = LedgerCheck.check(dir.resolve("ledger.db"), acknowledged);
       assertEquals("ok", report.integrity(), "round " + round);
+      assertEquals(0, report.unnamed(), "round " + round + ": records whose names are not in the dictionary");
       assertEquals(List.of(), report.missing(), "round " + round + ": acknowledged but not in the ledger");
       assertTrue(report.invocations() >= acknowledged.size());
     }

@@ -19,11 +19,13 @@ import java.util.UUID;
 
 /**
  * Checks an SQLite ledger file after a crash: runs {@code PRAGMA integrity_check}, counts the
- * records, and finds which of a list of ids (those acknowledged to clients) are missing.
+ * records, counts the records whose key, run or tool number has no name in the dictionary
+ * ({@code PRAGMA foreign_key_check}: such a record could not be read back whole), and finds which
+ * of a list of ids (those acknowledged to clients) are missing.
  *
  * <p>As a program: {@code LedgerCheck LEDGER_FILE [IDS_FILE]}, where IDS_FILE holds one id a line.
- * Prints {@code integrity: ok}, {@code invocations: N}, {@code missing: K} and each missing id;
- * exits 0 when the file is intact and nothing is missing, 1 otherwise, 2 on bad usage.
+ * Prints {@code integrity: ok}, {@code invocations: N}, {@code unnamed: U}, {@code missing: K} and
+ * each missing id; exits 0 when the file is intact and nothing is missing, 1 otherwise, 2 on bad usage.
  */
 public final class LedgerCheck {
   private LedgerCheck() {}
@@ -33,16 +35,17 @@ public final class LedgerCheck {
    *
    * @param integrity the result of {@code PRAGMA integrity_check}: {@code ok} or SQLite's findings
    * @param invocations the number of records in the file
+   * @param unnamed the records that name a key, run or tool number missing from the dictionary
    * @param missing the ids asked about that the file does not hold, in the order asked
    */
-  public record Report(String integrity, long invocations, List<String> missing) {
+  public record Report(String integrity, long invocations, long unnamed, List<String> missing) {
     public Report {
       Objects.requireNonNull(integrity, "integrity");
       missing = List.copyOf(missing);
     }
 
     public boolean isIntact() {
-      return integrity.equals("ok");
+      return integrity.equals("ok") && unnamed == 0;
     }
   }
 
@@ -69,6 +72,12 @@ public final class LedgerCheck {
         rs.next();
         count = rs.getLong(1);
       }
+      long unnamed = 0;
+      try (Statement st = c.createStatement(); ResultSet rs = st.executeQuery("PRAGMA foreign_key_check(invocations)")) {
+        while (rs.next()) {
+          unnamed++; // one row per record and reference without its name
+        }
+      }
       List<String> missing = new ArrayList<>();
       try (PreparedStatement ps = c.prepareStatement("SELECT 1 FROM invocations WHERE seq = ? AND id_lo = ?")) {
         for (String id : ids) {
@@ -82,7 +91,7 @@ public final class LedgerCheck {
           }
         }
       }
-      return new Report(integrity.toString(), count, missing);
+      return new Report(integrity.toString(), count, unnamed, missing);
     }
   }
 
@@ -106,6 +115,7 @@ public final class LedgerCheck {
     Report report = check(Path.of(args[0]), ids);
     out.println("integrity: " + report.integrity());
     out.println("invocations: " + report.invocations());
+    out.println("unnamed: " + report.unnamed());
     out.println("missing: " + report.missing().size());
     report.missing().forEach(out::println);
     return report.isIntact() && report.missing().isEmpty() ? 0 : 1;

@@ -1,6 +1,7 @@
 package reckoner.ledger;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static reckoner.ledger.Fixtures.HERON;
 import static reckoner.ledger.Fixtures.call;
@@ -11,7 +12,10 @@ import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.sql.Connection;
+import java.sql.DriverManager;
 import java.sql.SQLException;
+import java.sql.Statement;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -31,7 +35,7 @@ final class LedgerCheckTest {
   void check_intactFile_reportsCountAndMissingIdsInOrderAsked() throws Exception {
     write(3);
     LedgerCheck.Report report = LedgerCheck.check(dir.resolve("ledger.db"), List.of(id(2, 0), id(7, 0), id(0, 0), id(8, 0)));
-    assertEquals(new LedgerCheck.Report("ok", 3, List.of(id(7, 0), id(8, 0))), report);
+    assertEquals(new LedgerCheck.Report("ok", 3, 0, List.of(id(7, 0), id(8, 0))), report);
   }
 
   @Test
@@ -43,7 +47,7 @@ final class LedgerCheckTest {
     int code = LedgerCheck.run(new String[] {dir.resolve("ledger.db").toString(), ids.toString()},
         new PrintStream(bytes, true, StandardCharsets.UTF_8));
     assertEquals(1, code);
-    assertEquals("integrity: ok\ninvocations: 2\nmissing: 1\n" + id(5, 0) + "\n",
+    assertEquals("integrity: ok\ninvocations: 2\nunnamed: 0\nmissing: 1\n" + id(5, 0) + "\n",
         bytes.toString(StandardCharsets.UTF_8).replace(System.lineSeparator(), "\n"));
   }
 
@@ -54,6 +58,18 @@ final class LedgerCheckTest {
     Files.writeString(ids, id(0, 0) + "\n");
     assertEquals(0, LedgerCheck.run(new String[] {dir.resolve("ledger.db").toString(), ids.toString()},
         new PrintStream(new ByteArrayOutputStream(), true, StandardCharsets.UTF_8)));
+  }
+
+  /** A record whose tool number has lost its name cannot be read back whole: the file is not intact. */
+  @Test
+  void check_recordWithNumberMissingFromDictionary_isNotIntact() throws Exception {
+    write(2);
+    try (Connection c = DriverManager.getConnection("jdbc:sqlite:" + dir.resolve("ledger.db")); Statement st = c.createStatement()) {
+      st.execute("UPDATE invocations SET tool_n = 999 WHERE seq = (SELECT max(seq) FROM invocations)");
+    }
+    LedgerCheck.Report report = LedgerCheck.check(dir.resolve("ledger.db"), List.of(id(0, 0)));
+    assertEquals(new LedgerCheck.Report("ok", 2, 1, List.of()), report);
+    assertFalse(report.isIntact());
   }
 
   @Test

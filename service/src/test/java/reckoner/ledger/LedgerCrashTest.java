@@ -51,6 +51,7 @@ final class LedgerCrashTest {
       assertEquals(137, child.exitValue()); // 128 + signal 9, SIGKILL (POSIX wait status as the JDK reports it, from memory)
       LedgerCheck.Report report = LedgerCheck.check(dir.resolve("ledger.db"), acknowledged);
       assertEquals("ok", report.integrity(), "round " + round);
+      assertEquals(0, report.unnamed(), "round " + round + ": records whose names are not in the dictionary");
       assertEquals(List.of(), report.missing(), "round " + round);
       assertTrue(report.invocations() >= acknowledged.size());
     }

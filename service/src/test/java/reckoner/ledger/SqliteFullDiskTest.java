@@ -69,5 +69,6 @@ final class SqliteFullDiskTest {
     LedgerCheck.Report report = LedgerCheck.check(dir.resolve("ledger.db"), List.of());
     assertEquals("ok", report.integrity());
     assertEquals(201, report.invocations());
+    assertEquals(0, report.unnamed());
   }
 }
