@@ -101,6 +101,13 @@ abstract class JdbcLedgerStore implements LedgerStore {
   /** A sargable term matching the records whose {@code name} is the one parameter it takes (a string). */
   abstract String nameTerm(Name name);
 
+  /**
+   * Adds terms that bound a {@code run} filter's walk in id order, with their parameters; by
+   * default none. A run's records are one stretch of the id order, which a planner that assumes
+   * matches spread evenly does not know.
+   */
+  void runSpanTerms(String run, List<String> terms, List<Object> params) {}
+
   /** Readies the names of {@code invocations} for {@link #bindName}, inside the write transaction. */
   void prepareNames(Connection c, List<Invocation> invocations) throws SQLException {}
 

@@ -46,6 +46,7 @@ record Select(String sql, List<Object> parameters) {
     if (q.run() != null) {
       terms.add(store.nameTerm(JdbcLedgerStore.Name.RUN));
       params.add(q.run());
+      store.runSpanTerms(q.run(), terms, params);
     }
     if (q.tool() != null) {
       terms.add(store.nameTerm(JdbcLedgerStore.Name.TOOL));

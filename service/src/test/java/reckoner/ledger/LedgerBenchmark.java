@@ -299,6 +299,7 @@ final class LedgerBenchmark {
       timeQuery(store, "key + ref_prefix (one plot)", heron.withRefPrefix("plot-3012345:"));
       timeQuery(store, "key + ref_prefix (a thousand plots)", heron.withRefPrefix("plot-3012"));
       timeQuery(store, "key + since/until (one second)", heron.withSince(sample.ts()).withUntil(sample.ts().plusSeconds(1)));
+      timeQuery(store, "key + run + outcome=error", heron.withRun("orchard-survey-3").withOutcome("error"));
       timeQuery(store, "key + run + outcome=error + ref_prefix", heron.withRun("orchard-survey-3").withOutcome("error")
           .withRefPrefix("plot-5"));
       timeQuery(store, "admin + tool", all.withTool("facts"));
