@@ -127,18 +127,7 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
           UUID id = UUID.fromString(inv.id());
           ps.setBytes(1, IdBounds.bytes(id));
           ps.setLong(2, inv.ts().toEpochMilli());
-          ps.setString(3, inv.keyId());
-          ps.setString(4, inv.run());
-          ps.setString(5, inv.ref());
-          ps.setString(6, inv.tool());
-          ps.setObject(7, inv.version());
-          ps.setString(8, inv.args());
-          ps.setString(9, inv.text());
-          ps.setString(10, inv.outcome());
-          ps.setBoolean(11, inv.cached());
-          ps.setLong(12, inv.elapsedUs());
-          ps.setString(13, inv.dataVersion());
-          ps.setString(14, inv.asOf());
+          bindFieldsAfterId(ps, inv);
           ps.executeUpdate();
         }
       }
@@ -183,18 +172,7 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
           UUID id = UUID.fromString(inv.id());
           ps.setLong(1, id.getMostSignificantBits());
           ps.setLong(2, id.getLeastSignificantBits());
-          ps.setString(3, inv.keyId());
-          ps.setString(4, inv.run());
-          ps.setString(5, inv.ref());
-          ps.setString(6, inv.tool());
-          ps.setObject(7, inv.version());
-          ps.setString(8, inv.args());
-          ps.setString(9, inv.text());
-          ps.setString(10, inv.outcome());
-          ps.setBoolean(11, inv.cached());
-          ps.setLong(12, inv.elapsedUs());
-          ps.setString(13, inv.dataVersion());
-          ps.setString(14, inv.asOf());
+          bindFieldsAfterId(ps, inv);
           ps.executeUpdate();
         }
       }
@@ -244,6 +222,22 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
     assertEquals(List.of(later), store.query(admin().withRun("orchard-survey-9")).invocations());
     assertEquals(List.of(later), store.query(InvocationQuery.of(Scope.key("key-wren"))).invocations());
     assertEquals(List.of(), store.query(InvocationQuery.of(Scope.key("key-kestrel"))).invocations()); // a name never written
+  }
+
+  /** Binds parameters 3 to 14 of a schema-1 or schema-2 row: the fields after the id's two columns, names as text. */
+  private static void bindFieldsAfterId(PreparedStatement ps, Invocation inv) throws java.sql.SQLException {
+    ps.setString(3, inv.keyId());
+    ps.setString(4, inv.run());
+    ps.setString(5, inv.ref());
+    ps.setString(6, inv.tool());
+    ps.setObject(7, inv.version());
+    ps.setString(8, inv.args());
+    ps.setString(9, inv.text());
+    ps.setString(10, inv.outcome());
+    ps.setBoolean(11, inv.cached());
+    ps.setLong(12, inv.elapsedUs());
+    ps.setString(13, inv.dataVersion());
+    ps.setString(14, inv.asOf());
   }
 
   /** Deleted records' pages return to the free list, and the bytes in use fall with them. */
