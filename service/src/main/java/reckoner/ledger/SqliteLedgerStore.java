@@ -40,9 +40,9 @@ import org.sqlite.SQLiteDataSource;
  * and the service starts its generator after the newest id in the file.
  *
  * <p>Keys, runs and tools repeat from record to record, so each row keeps them as numbers of a
- * dictionary, {@code ledger_names} ({@code key_n}, {@code run_n}, {@code tool_n}): the row and its
- * key, run and tool index entries take about a fifth less room (207 bytes a record, not 266), and the writer, which is what
- * limits the ledger's rate, does that much less work per record (load-tests/ledger). The writer
+ * dictionary, {@code ledger_names} ({@code key_n}, {@code run_n}, {@code tool_n}): a record with
+ * its index entries takes about a fifth less room (207 bytes, not 266), and the writer, which is
+ * what limits the ledger's rate, does less work per record (load-tests/ledger). The writer
  * keeps a copy of the dictionary and adds new names in the transaction of the batch that brings
  * them; names stay when their records are deleted. Reads turn numbers back into names in SQL.
  * The view {@code invocation_records} shows ids, times and names as text, for readers of the file.
