@@ -17,7 +17,10 @@ DATA="$BASE/data"
 DB=reckoner_test
 
 log() { echo "postgres.sh: $*" >&2; }
-newest_bin() { ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -n 1; }
+# No PostgreSQL yet is an answer (empty), not a failure: the glob then matches nothing and ls fails,
+# which pipefail would turn into an exit before the install step below.
+newest_bin() { { ls -d /usr/lib/postgresql/*/bin 2>/dev/null || true; } | sort -V | tail -n 1; }
+fail() { log "$*"; exit 1; }
 # initdb and the server refuse to run as root: run them as the postgres user then.
 as_owner() {
   if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi
@@ -33,6 +36,7 @@ if [ -z "$BIN" ] || [ ! -x "$BIN/initdb" ]; then
   apt-get update -qq >&2
   apt-get install -y -qq postgresql >&2
   BIN="$(newest_bin)"
+  [ -n "$BIN" ] && [ -x "$BIN/initdb" ] || fail "PostgreSQL was installed but no initdb was found under /usr/lib/postgresql"
 fi
 
 if [ "${1:-start}" = stop ]; then
@@ -59,13 +63,18 @@ fi
 
 if ! as_owner "$BIN/pg_ctl" -D "$DATA" status >/dev/null 2>&1; then
   log "starting the cluster on 127.0.0.1:$PORT"
-  as_owner "$BIN/pg_ctl" -D "$DATA" -l "$BASE/server.log" -w -t 60 start >&2
+  if ! as_owner "$BIN/pg_ctl" -D "$DATA" -l "$BASE/server.log" -w -t 60 start >&2; then
+    tail -n 20 "$BASE/server.log" >&2 || true
+    fail "the PostgreSQL test cluster did not start (log above: $BASE/server.log)"
+  fi
 fi
 
 if ! as_owner "$BIN/psql" -h 127.0.0.1 -p "$PORT" -U postgres -tAc "SELECT 1 FROM pg_database WHERE datname = '$DB'" postgres | grep -q 1; then
   as_owner "$BIN/createdb" -h 127.0.0.1 -p "$PORT" -U postgres "$DB" >&2
 fi
 
+as_owner "$BIN/psql" -h 127.0.0.1 -p "$PORT" -U postgres -tAc "SELECT 1" "$DB" >/dev/null \
+  || fail "the PostgreSQL test cluster on 127.0.0.1:$PORT does not answer queries"
 echo "export RECKONER_TEST_PG_URL='jdbc:postgresql://127.0.0.1:$PORT/$DB?user=postgres'"
 echo "export RECKONER_TEST_PG_DATA='$DATA'"
 echo "export RECKONER_TEST_PG_BIN='$BIN'"

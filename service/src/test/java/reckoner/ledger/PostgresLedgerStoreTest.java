@@ -1,16 +1,16 @@
 package reckoner.ledger;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
-import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
 import java.sql.Connection;
 import java.sql.DriverManager;
 import java.sql.Statement;
 import org.junit.jupiter.api.Test;
+import reckoner.Prerequisites;
 
 /**
  * The store contract on PostgreSQL. Needs {@code RECKONER_TEST_PG_URL} (see {@code .ci/postgres.sh});
- * without it these tests are skipped. Each test gets a schema of its own.
+ * without it these tests are skipped (and fail under CI=true). Each test gets a schema of its own.
  */
 final class PostgresLedgerStoreTest extends LedgerStoreContract {
   static final String URL = System.getenv("RECKONER_TEST_PG_URL");
@@ -18,7 +18,7 @@ final class PostgresLedgerStoreTest extends LedgerStoreContract {
 
   /** A fresh, empty schema in the test database; returns its URL. */
   static String freshSchemaUrl(String prefix) throws Exception {
-    assumeTrue(URL != null && !URL.isEmpty(), "RECKONER_TEST_PG_URL is not set: PostgreSQL tests skipped");
+    Prerequisites.require(URL != null && !URL.isEmpty(), "RECKONER_TEST_PG_URL is not set (run .ci/postgres.sh)");
     String schema = prefix + "_" + ProcessHandle.current().pid() + "_" + (++counter);
     try (Connection c = DriverManager.getConnection(URL); Statement st = c.createStatement()) {
       st.execute("DROP SCHEMA IF EXISTS " + schema + " CASCADE");

@@ -3,7 +3,6 @@ package reckoner.ledger;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
-import static org.junit.jupiter.api.Assumptions.assumeTrue;
 import static reckoner.ledger.Fixtures.HERON;
 
 import java.io.IOException;
@@ -23,6 +22,7 @@ import java.util.function.BooleanSupplier;
 import org.junit.jupiter.api.Test;
 import reckoner.call.InvocationIds;
 import reckoner.ledger.InvocationQuery.Scope;
+import reckoner.Prerequisites;
 
 /**
  * PostgreSQL stopped in the middle of a run: calls in commit mode fail as unavailable, the writer
@@ -36,7 +36,7 @@ final class PostgresOutageTest {
 
   @Test
   void serverStoppedMidRun_callsFailThenResumeWithNoAcknowledgedRecordLost() throws Exception {
-    assumeTrue(DATA != null && BIN != null, "RECKONER_TEST_PG_DATA and RECKONER_TEST_PG_BIN are not set: skipped");
+    Prerequisites.require(DATA != null && BIN != null, "RECKONER_TEST_PG_DATA and RECKONER_TEST_PG_BIN are not set (run .ci/postgres.sh)");
     String url = PostgresLedgerStoreTest.freshSchemaUrl("ledger_outage");
     InvocationIds ids = new InvocationIds(Clock.systemUTC());
     ConcurrentLinkedQueue<String> acknowledged = new ConcurrentLinkedQueue<>();

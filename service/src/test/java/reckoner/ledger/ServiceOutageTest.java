@@ -2,7 +2,6 @@ package reckoner.ledger;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
-import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
 import java.net.URI;
 import java.net.http.HttpClient;
@@ -20,6 +19,7 @@ import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import reckoner.Service;
 import reckoner.config.ServiceConfig;
+import reckoner.Prerequisites;
 
 /**
  * The whole service on a PostgreSQL ledger, with PostgreSQL stopped mid-run: calls answer 503
@@ -34,7 +34,7 @@ final class ServiceOutageTest {
 
   @Test
   void postgresStoppedMidRun_callsAre503_thenResume_withNoAcknowledgedCallLost() throws Exception {
-    assumeTrue(DATA != null && BIN != null, "RECKONER_TEST_PG_DATA and RECKONER_TEST_PG_BIN are not set: skipped");
+    Prerequisites.require(DATA != null && BIN != null, "RECKONER_TEST_PG_DATA and RECKONER_TEST_PG_BIN are not set (run .ci/postgres.sh)");
     String url = PostgresLedgerStoreTest.freshSchemaUrl("service_outage");
     Service service = Service.start(ServiceConfig.from(Map.of("port", "0", "data-dir", Files.createTempDirectory("outage").toString(),
         "ledger", "postgresql", "ledger-url", url)), Clock.systemUTC());
