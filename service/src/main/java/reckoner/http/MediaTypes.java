@@ -12,22 +12,25 @@ final class MediaTypes {
 
   private MediaTypes() {}
 
-  /** Whether the caller asked for the bare text answer; refuses an Accept that allows neither form. */
+  /**
+   * Whether the caller asked for the bare text answer, by the weights of its {@code Accept} header;
+   * refuses an Accept that allows neither form ({@code 406 not_acceptable}).
+   */
   static boolean wantsText(String accept) {
-    if (accept == null || accept.isBlank()) {
-      return false;
+    AcceptHeader a = AcceptHeader.parse(accept);
+    if (a.acceptsNeither()) {
+      throw new ApiException(ErrorCode.NOT_ACCEPTABLE,
+          "this endpoint answers application/json or text/plain, not " + clip(accept));
     }
-    String a = accept.toLowerCase(Locale.ROOT);
-    boolean json = a.contains("application/json") || a.contains("application/problem+json") || a.contains("application/*");
-    boolean text = a.contains("text/plain") || a.contains("text/*");
-    if (text && !json) {
-      return true;
-    }
-    if (json || a.contains("*/*")) {
-      return false;
-    }
-    throw new ApiException(ErrorCode.NOT_ACCEPTABLE,
-        "this endpoint answers application/json or text/plain, not " + clip(accept));
+    return a.prefersText();
+  }
+
+  /**
+   * The form a refusal takes: the bare line when the caller's {@code Accept} prefers text/plain,
+   * otherwise a JSON problem (also when the header allows neither: a refusal is never withheld).
+   */
+  static boolean refusalAsText(String accept) {
+    return AcceptHeader.parse(accept).prefersText();
   }
 
   /** The base type of a Content-Type header, lower-cased, without parameters; empty when absent. */

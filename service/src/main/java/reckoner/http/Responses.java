@@ -12,6 +12,8 @@ import tools.jackson.databind.node.ObjectNode;
 final class Responses {
   /** Header naming the error code on a text/plain error answer, where there is no JSON body. */
   static final String ERROR_CODE_HEADER = "Reckoner-Error-Code";
+  /** Header naming the invocation of a call's answer or refusal, in either form. */
+  static final String INVOCATION_ID_HEADER = "Reckoner-Invocation-Id";
 
   private final JsonMapper json;
 
@@ -39,6 +41,9 @@ final class Responses {
   void problem(Context ctx, ToolError error, boolean asText, String invocationId) {
     int status = Problem.status(error.code());
     ctx.header(ERROR_CODE_HEADER, error.code().wireName());
+    if (invocationId != null) {
+      ctx.header(INVOCATION_ID_HEADER, invocationId);
+    }
     if (asText) {
       text(ctx, status, error.text());
       return;
@@ -46,9 +51,10 @@ final class Responses {
     ctx.status(status).contentType(MediaTypes.PROBLEM).result(json.writeValueAsBytes(problemBody(error, invocationId)));
   }
 
+  /** A refusal in the form the caller's {@code Accept} prefers, with {@code headers} (such as Retry-After). */
   void problem(Context ctx, ToolError error, Map<String, String> headers) {
     headers.forEach(ctx::header);
-    problem(ctx, error, false, null);
+    problem(ctx, error, MediaTypes.refusalAsText(ctx.header("Accept")), null);
   }
 
   ObjectNode problemBody(ToolError error, String invocationId) {

@@ -46,8 +46,12 @@ final class SpliceRoutes {
       responses.problem(ctx, unrecorded.error(), asText, null);
       return;
     }
+    if (asText && !s.isOk()) {
+      responses.problem(ctx, s.outcome().error().get(), true, s.outcome().invocationId());
+      return;
+    }
     if (asText) {
-      responses.text(ctx, s.isOk() ? 200 : Problem.status(s.outcome().error().get().code()), s.outcome().text());
+      responses.text(ctx, 200, s.outcome().text());
       return;
     }
     if (!s.isOk()) {

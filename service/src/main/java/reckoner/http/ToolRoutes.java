@@ -93,7 +93,7 @@ final class ToolRoutes {
 
   private void answer(Context ctx, Outcome outcome, boolean asText) {
     Answer answer = outcome.answer().get();
-    ctx.header("Reckoner-Invocation-Id", outcome.invocationId());
+    ctx.header(Responses.INVOCATION_ID_HEADER, outcome.invocationId());
     if (asText) {
       responses.text(ctx, 200, answer.text());
       return;
