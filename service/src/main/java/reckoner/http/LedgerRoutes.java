@@ -27,7 +27,12 @@ final class LedgerRoutes {
   }
 
   void query(Context ctx) {
-    InvocationPage page = store.query(parse(ctx));
+    InvocationQuery query = parse(ctx);
+    if (query.limit() != null && query.limit() > InvocationQuery.MAX_PAGE_SIZE) {
+      throw new ApiException(reckoner.tool.ErrorCode.INVALID_ARGUMENT, "limit must be at most " + InvocationQuery.MAX_PAGE_SIZE
+          + " records a page but was " + query.limit() + "; follow \"next\" for more, or read every match from /v1/invocations/export");
+    }
+    InvocationPage page = store.query(query);
     ctx.status(200).contentType(MediaTypes.JSON).result(page.toJson());
   }
 
