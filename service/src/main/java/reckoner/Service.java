@@ -18,6 +18,7 @@ import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
+import reckoner.config.ConfigException;
 import reckoner.config.ServiceConfig;
 import reckoner.facts.FactsWatcher;
 import reckoner.ledger.LedgerWriter;
@@ -49,6 +50,7 @@ public final class Service implements AutoCloseable {
   }
 
   public static Service start(ServiceConfig config, Clock clock) {
+    requirePortFree(config.host(), config.port()); // before the ledger opens: a second start changes nothing
     JsonMapper json = Json.newMapper();
     PrometheusMeterRegistry metrics = new PrometheusMeterRegistry(PrometheusConfig.DEFAULT);
     Timer commitTime = Timer.builder("reckoner.ledger.commit").description("Time to commit one group of invocations")
@@ -90,7 +92,13 @@ public final class Service implements AutoCloseable {
     HttpApi.Settings settings = new HttpApi.Settings(config.maxBodyBytes(), config.maxBatchBytes(), engine.markup(),
         OpenApi.assemble(catalog, json, VERSION), engine::isReady, calls, engine.facts(), engine.ledger());
     Javalin http = HttpApi.create(engine.invoker(), metrics, json, settings);
-    http.start(config.host(), config.port());
+    try {
+      http.start(config.host(), config.port());
+    } catch (RuntimeException e) { // the port was taken between the check and the start
+      calls.shutdown();
+      engine.close();
+      throw new ConfigException(cannotListen(config.host(), config.port(), e));
+    }
     LOG.info("serving {} tool versions on http://{}:{} (data dir {})", catalog.all().size(), config.host(), http.port(),
         config.dataDir());
     if (config.openAccess()) {
@@ -99,6 +107,30 @@ public final class Service implements AutoCloseable {
       LOG.info("no API keys configured: listening on loopback only");
     }
     return new Service(http, calls, watcher, engine);
+  }
+
+  /** Fails with one line naming the address when it cannot be bound (in use, not an address of this host). */
+  private static void requirePortFree(String host, int port) {
+    if (port == 0) {
+      return;
+    }
+    try (java.net.ServerSocket probe = new java.net.ServerSocket()) {
+      probe.setReuseAddress(true); // as Jetty binds: a port in TIME_WAIT is free
+      probe.bind(new java.net.InetSocketAddress(host, port));
+    } catch (java.io.IOException e) {
+      throw new ConfigException(cannotListen(host, port, e));
+    }
+  }
+
+  private static String cannotListen(String host, int port, Exception e) {
+    Throwable root = e;
+    while (root.getCause() != null) {
+      root = root.getCause();
+    }
+    String why = root instanceof java.net.BindException && String.valueOf(root.getMessage()).contains("in use")
+        ? "the port is in use by another process; stop it or choose another with --port"
+        : String.valueOf(root.getMessage());
+    return "cannot listen on " + host + ":" + port + ": " + why;
   }
 
   static java.util.concurrent.ThreadFactory daemonThreads(String prefix) {
