@@ -5,16 +5,14 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Clock;
-import java.util.LinkedHashMap;
-import java.util.List;
-import java.util.Map;
 import java.util.concurrent.Callable;
 import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Spec;
 import picocli.CommandLine.Option;
 import reckoner.cli.FillCommand;
 import reckoner.config.ConfigException;
@@ -29,114 +27,35 @@ import reckoner.splice.OnError;
     subcommands = {Main.Serve.class, Main.Fill.class})
 public final class Main implements Runnable {
   public static void main(String[] args) {
-    System.exit(new CommandLine(new Main()).execute(args));
+    System.exit(commandLine().execute(args));
+  }
+
+  /** The command line with a flag for every setting (see {@link SettingFlags}). */
+  static CommandLine commandLine() {
+    CommandLine line = new CommandLine(new Main());
+    SettingFlags.addTo(line.getSubcommands().get("serve").getCommandSpec(), true);
+    SettingFlags.addTo(line.getSubcommands().get("fill").getCommandSpec(), false);
+    return line;
   }
 
   @Override
   public void run() {
-    new CommandLine(this).usage(System.out);
-  }
-
-  /** Settings both commands share. Each maps to the setting of the same name (see ServiceConfig). */
-  static final class Settings {
-    @Option(names = "--data-dir", description = "Directory for the ledger and facts/ (default ./data).")
-    Path dataDir;
-
-    @Option(names = "--cache-size", description = "Answers kept in the answer cache; 0 turns it off (default 100000).")
-    Long cacheSize;
-
-    @Option(names = "--call-threads", description = "Threads that run calls in parallel; 0 = one per core (default 0).")
-    Integer callThreads;
-
-    @Option(names = "--markup-open", description = "Splice markup: the string that opens a call (default <<).")
-    String markupOpen;
-
-    @Option(names = "--markup-separator", description = "Splice markup: the string before an answer (default ' => ').")
-    String markupSeparator;
-
-    @Option(names = "--markup-close", description = "Splice markup: the string that closes a call (default >>).")
-    String markupClose;
-
-    @Option(names = "--facts-dir", description = "A directory of fact files (*.jsonl) beside <data dir>/facts; repeatable.")
-    List<Path> factsDirs;
-
-    @Option(names = "--facts-demo", negatable = true, description = "Serve the shipped demo fact sets (default true).")
-    Boolean factsDemo;
-
-    @Option(names = "--facts-default-set", description = "The fact set read when a call names none (default demo).")
-    String factsDefaultSet;
-
-    @Option(names = "--ledger", description = "Where invocations are kept: sqlite (default, <data dir>/ledger.db) or postgresql.")
-    String ledger;
-
-    @Option(names = "--ledger-url", description = "JDBC URL of the PostgreSQL ledger, e.g. jdbc:postgresql://127.0.0.1:5432/reckoner.")
-    String ledgerUrl;
-
-    @Option(names = "--durability", description = "commit (default: an answer leaves after its record is committed) or async.")
-    String durability;
-
-    @Option(names = "--config", description = "A properties file of settings (same names as the flags, without --).")
-    Path configFile;
-
-    final Map<String, String> flags = new LinkedHashMap<>();
-
-    void put(String name, Object value) {
-      if (value != null) {
-        flags.put(name, value.toString());
-      }
-    }
-
-    ServiceConfig resolve() {
-      put("data-dir", dataDir);
-      put("cache-size", cacheSize);
-      put("call-threads", callThreads);
-      put("markup-open", markupOpen);
-      put("markup-separator", markupSeparator);
-      put("markup-close", markupClose);
-      if (factsDirs != null) {
-        put("facts-dirs", String.join(",", factsDirs.stream().map(Path::toString).toList()));
-      }
-      put("facts-demo", factsDemo);
-      put("ledger", ledger);
-      put("ledger-url", ledgerUrl);
-      put("durability", durability);
-      put("facts-default-set", factsDefaultSet);
-      Path file = configFile != null ? configFile
-          : System.getenv("RECKONER_CONFIG") != null ? Path.of(System.getenv("RECKONER_CONFIG")) : null;
-      return ServiceConfig.from(ServiceConfig.merge(file, System.getenv(), flags));
-    }
+    commandLine().usage(System.out);
   }
 
   @Command(name = "serve", mixinStandardHelpOptions = true,
       description = "Start the HTTP service. Settings: flag > RECKONER_* environment > --config file > default.")
   static final class Serve implements Callable<Integer> {
-    @Mixin Settings settings;
+    @Spec CommandSpec spec;
 
-    @Option(names = "--port", description = "TCP port (default 8080; 0 = any free port).")
-    Integer port;
-
-    @Option(names = "--host", description = "Address to listen on (default 127.0.0.1).")
-    String host;
-
-    @Option(names = "--max-body-bytes", description = "Largest request body accepted (default 1048576).")
-    Long maxBodyBytes;
-
-    @Option(names = "--max-batch-bytes", description = "Largest batch, splice or fill body and NDJSON line (default 16777216).")
-    Long maxBatchBytes;
-
-    @Option(names = "--open-access", description = "Allow a non-loopback --host without API keys.")
-    Boolean openAccess;
+    @Option(names = "--config", description = "A properties file of settings (same names as the flags, without --).")
+    Path configFile;
 
     @Override
     public Integer call() throws InterruptedException {
-      settings.put("port", port);
-      settings.put("host", host);
-      settings.put("max-body-bytes", maxBodyBytes);
-      settings.put("max-batch-bytes", maxBatchBytes);
-      settings.put("open-access", openAccess);
       Service service;
       try {
-        service = Service.start(settings.resolve(), Clock.systemUTC());
+        service = Service.start(SettingFlags.resolve(spec, configFile, System.getenv()), Clock.systemUTC());
       } catch (ConfigException e) {
         System.err.println("reckoner: " + e.getMessage());
         return 2;
@@ -156,7 +75,10 @@ public final class Main implements Runnable {
           "Input lines: {\"id\": ..., \"document\": \"text with <<arith(1+1)>> calls\"}.",
           "Output lines, in input order: {\"id\", \"document\", \"calls\", \"malformed\"}."})
   static final class Fill implements Callable<Integer> {
-    @Mixin Settings settings;
+    @Spec CommandSpec spec;
+
+    @Option(names = "--config", description = "A properties file of settings (same names as the flags, without --).")
+    Path configFile;
 
     @Option(names = {"-i", "--input"}, required = true, description = "The JSON Lines file of documents.")
     Path input;
@@ -188,7 +110,7 @@ public final class Main implements Runnable {
       Engine engine;
       ServiceConfig config;
       try {
-        config = settings.resolve();
+        config = SettingFlags.resolve(spec, configFile, System.getenv());
         engine = Engine.build(config, Clock.systemUTC(), Json.newMapper(), reckoner.ledger.LedgerStats.CommitListener.none());
       } catch (ConfigException e) {
         System.err.println("reckoner: " + e.getMessage());

@@ -54,8 +54,6 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     String ledger, String ledgerUrl, String ledgerUser, String ledgerPassword, int ledgerPoolSize, boolean ledgerSync,
     String durability, int ledgerQueue, long retentionDays, long retentionMaxRecords,
     long retentionMaxBytes) {
-  /** Every setting with its default. The README's settings table lists the same. */
-  public static final Map<String, String> DEFAULTS = defaults();
 
   public ServiceConfig {
     if (port < 0 || port > 65535) {
@@ -96,34 +94,52 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     }
   }
 
+  /**
+   * One setting: its name (flag {@code --NAME}, variable {@code RECKONER_NAME}, file key {@code NAME}),
+   * its default, whether only {@code serve} takes it (HTTP settings), and what it means. The README's
+   * settings table lists the same names and defaults (a test compares them).
+   */
+  public record Setting(String name, String defaultValue, boolean serveOnly, String meaning) {}
+
+  /** Every setting, in the README's order. */
+  public static final List<Setting> SETTINGS = List.of(
+      new Setting("host", "127.0.0.1", true, "Address to listen on; without API keys only loopback addresses are accepted."),
+      new Setting("port", "8080", true, "TCP port (0: any free port)."),
+      new Setting("data-dir", "./data", false, "Directory of the ledger and facts/."),
+      new Setting("max-body-bytes", "1048576", true, "Largest request body; larger bodies get 413 payload_too_large."),
+      new Setting("open-access", "false", true,
+          "Allow a non-loopback host without API keys (for a container behind an authenticating proxy)."),
+      new Setting("max-batch-bytes", "16777216", true, "Largest JSON batch, splice or fill body, and longest NDJSON line."),
+      new Setting("cache-size", "100000", false, "Answers kept in the answer cache; 0 turns it off."),
+      new Setting("call-threads", "0", false, "Threads that run batch and fill calls; 0 means one per core."),
+      new Setting("markup-open", "<<", false, "The splice markup: the string that opens a call."),
+      new Setting("markup-separator", " => ", false, "The splice markup: the string between a call and its answer."),
+      new Setting("markup-close", ">>", false, "The splice markup: the string that closes a call."),
+      new Setting("facts-dirs", "", false, "More directories of fact files, comma-separated (flag --facts-dir, repeatable)."),
+      new Setting("facts-demo", "true", false, "Serve the shipped demo fact sets demo and demo-words."),
+      new Setting("facts-default-set", "demo", false, "The fact set a call without set reads."),
+      new Setting("facts-poll-ms", "2000", false, "How often fact files are checked for changes; 0: only on an admin reload."),
+      new Setting("ledger", "sqlite", false, "Where invocations are kept: sqlite (<data dir>/ledger.db) or postgresql."),
+      new Setting("ledger-url", "", false, "JDBC URL of the PostgreSQL ledger, e.g. jdbc:postgresql://127.0.0.1:5432/reckoner."),
+      new Setting("ledger-user", "", false, "PostgreSQL user (empty: from the URL)."),
+      new Setting("ledger-password", "", false, "PostgreSQL password (empty: from the URL)."),
+      new Setting("ledger-pool-size", "8", false, "PostgreSQL connections at most."),
+      new Setting("ledger-sync", "true", false,
+          "SQLite syncs every group commit to the disk (survives power loss); false: survives a crash of the process only."),
+      new Setting("durability", "commit", false,
+          "commit: an answer leaves after its record is committed; async: at once, 503 when the queue is full."),
+      new Setting("ledger-queue", "65536", false, "Records queued for the ledger writer at most."),
+      new Setting("retention-days", "0", false, "Delete records older than this many days (0: keep)."),
+      new Setting("retention-max-records", "0", false, "Delete the oldest records beyond this count (0: keep)."),
+      new Setting("retention-max-bytes", "0", false,
+          "Delete the oldest records while the rest take more than this (500MB, 2GiB; 0: keep)."));
+
+  /** Every setting with its default. */
+  public static final Map<String, String> DEFAULTS = defaults();
+
   private static Map<String, String> defaults() {
     Map<String, String> d = new LinkedHashMap<>();
-    d.put("host", "127.0.0.1");
-    d.put("port", "8080");
-    d.put("data-dir", "./data");
-    d.put("max-body-bytes", "1048576");
-    d.put("open-access", "false");
-    d.put("max-batch-bytes", "16777216");
-    d.put("cache-size", "100000");
-    d.put("call-threads", "0");
-    d.put("markup-open", "<<");
-    d.put("markup-separator", " => ");
-    d.put("markup-close", ">>");
-    d.put("facts-dirs", "");
-    d.put("facts-demo", "true");
-    d.put("facts-default-set", "demo");
-    d.put("facts-poll-ms", "2000");
-    d.put("ledger", "sqlite");
-    d.put("ledger-url", "");
-    d.put("ledger-user", "");
-    d.put("ledger-password", "");
-    d.put("ledger-pool-size", "8");
-    d.put("ledger-sync", "true");
-    d.put("durability", "commit");
-    d.put("ledger-queue", "65536");
-    d.put("retention-days", "0");
-    d.put("retention-max-records", "0");
-    d.put("retention-max-bytes", "0");
+    SETTINGS.forEach(setting -> d.put(setting.name(), setting.defaultValue()));
     return java.util.Collections.unmodifiableMap(d);
   }
 
