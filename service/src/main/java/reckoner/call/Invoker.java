@@ -71,9 +71,25 @@ public final class Invoker {
     return new Recorded(outcome, sink.record(request, outcome));
   }
 
+  /**
+   * Runs one call, lets {@code review} replace its outcome (a caller that cannot use the answer
+   * as it stands, such as a splice that would not read back), then records the reviewed outcome:
+   * the ledger holds what the caller was given.
+   */
+  public Recorded call(CallRequest request, java.util.function.UnaryOperator<Outcome> review) {
+    Outcome outcome = review.apply(invoke(request));
+    return new Recorded(outcome, sink.record(request, outcome));
+  }
+
   /** Runs one call given in its free-text form and hands its record to the ledger. */
   public Recorded callText(String tool, java.util.OptionalInt version, String text, String asOf, String run, String ref) {
     return call(new CallRequest(tool, version, textArgs(text), asOf, run, ref));
+  }
+
+  /** {@link #callText} with a review of the outcome before it is recorded (see {@link #call(CallRequest, java.util.function.UnaryOperator)}). */
+  public Recorded callText(String tool, java.util.OptionalInt version, String text, String asOf, String run, String ref,
+      java.util.function.UnaryOperator<Outcome> review) {
+    return call(new CallRequest(tool, version, textArgs(text), asOf, run, ref), review);
   }
 
   private static JsonNode textArgs(String text) {

@@ -2,6 +2,7 @@ package reckoner.http;
 
 import io.javalin.http.Context;
 import java.util.Optional;
+import reckoner.results.ResultJson;
 import reckoner.splice.Filler;
 import reckoner.splice.Markup;
 import reckoner.splice.OnError;
@@ -46,12 +47,13 @@ final class SpliceRoutes {
       responses.problem(ctx, unrecorded.error(), asText, null);
       return;
     }
-    if (asText && !s.isOk()) {
-      responses.problem(ctx, s.outcome().error().get(), true, s.outcome().invocationId());
-      return;
-    }
-    if (asText) {
-      responses.text(ctx, 200, s.outcome().text());
+    if (asText) { // the line the document would hold: never a markup string, so an inference server can splice it as is
+      String line = s.line() == null ? "" : s.line();
+      if (!s.isOk()) {
+        ctx.header(Responses.ERROR_CODE_HEADER, s.outcome().error().get().code().wireName());
+      }
+      ctx.header(Responses.INVOCATION_ID_HEADER, s.outcome().invocationId());
+      responses.text(ctx, s.isOk() ? 200 : Problem.status(s.outcome().error().get().code()), line);
       return;
     }
     if (!s.isOk()) {
@@ -63,7 +65,7 @@ final class SpliceRoutes {
           .result(responses.json().writeValueAsBytes(problem));
       return;
     }
-    ObjectNode body = Outcomes.write(responses.object(), null, s.outcome());
+    ObjectNode body = ResultJson.outcome(responses.object(), null, s.outcome());
     body.put("call", s.call().toString());
     body.put("spliced", s.spliced());
     responses.json(ctx, 200, body);
@@ -80,30 +82,7 @@ final class SpliceRoutes {
       responses.text(ctx, 200, filled.document());
       return;
     }
-    ObjectNode body = responses.object();
-    body.put("document", filled.document());
-    ArrayNode calls = body.putArray("calls");
-    int errors = 0;
-    for (Filler.Spliced c : filled.calls()) {
-      ObjectNode n = calls.addObject();
-      n.put("position", c.position());
-      n.put("call", c.call().toString());
-      Outcomes.write(n, null, c.outcome());
-      errors += c.isOk() ? 0 : 1;
-    }
-    ArrayNode malformed = body.putArray("malformed");
-    for (Filler.Malformed m : filled.malformed()) {
-      ObjectNode n = malformed.addObject();
-      n.put("position", m.position());
-      n.put("code", m.error().code().wireName());
-      n.put("detail", m.error().detail());
-      n.put("text", m.error().text());
-    }
-    ObjectNode summary = body.putObject("summary");
-    summary.put("calls", filled.calls().size());
-    summary.put("ok", filled.calls().size() - errors);
-    summary.put("errors", errors);
-    summary.put("malformed", filled.malformed().size());
+    ObjectNode body = ResultJson.filled(responses.object(), filled);
     responses.json(ctx, 200, body);
   }
 

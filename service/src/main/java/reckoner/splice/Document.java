@@ -44,18 +44,41 @@ public final class Document {
 
   /** Cuts {@code text} by {@code markup}. */
   public static Document parse(String text, Markup markup) {
+    return parse(text, markup.open(), markup.separator(), markup.close());
+  }
+
+  /**
+   * Whether {@code text} starts with one call of exactly {@code callLength} characters that reads
+   * back as {@code call} (a call's text, as {@link CallText#parse} reads it) with {@code answer}
+   * (null: unanswered); what follows the call is the document's text after it, which must not
+   * change where the call ends.
+   */
+  static boolean readsBack(String text, int callLength, String call, String answer, String open, String separator,
+      String close) {
+    List<Part> parts = parse(text, open, separator, close).parts();
+    if (parts.isEmpty() || parts.get(0).call().isEmpty() || parts.get(0).raw().length() != callLength) {
+      return false;
+    }
+    Part p = parts.get(0);
+    if (!p.call().get().toString().equals(call)) {
+      return false;
+    }
+    return answer == null ? p.answer().isEmpty() : p.answer().map(answer::equals).orElse(false);
+  }
+
+  private static Document parse(String text, String openString, String separator, String closeString) {
     List<Part> parts = new ArrayList<>();
     int i = 0;
     int literalStart = 0;
     int codePoints = 0; // code points before literalStart
     while (true) {
-      int open = text.indexOf(markup.open(), i);
+      int open = text.indexOf(openString, i);
       if (open < 0) {
         break;
       }
-      int bodyStart = open + markup.open().length();
-      int close = text.indexOf(markup.close(), bodyStart);
-      int nextOpen = text.indexOf(markup.open(), bodyStart);
+      int bodyStart = open + openString.length();
+      int close = text.indexOf(closeString, bodyStart);
+      int nextOpen = text.indexOf(openString, bodyStart);
       if (open > literalStart) {
         parts.add(literal(literalStart, text.substring(literalStart, open), codePoints));
         codePoints += text.codePointCount(literalStart, open);
@@ -64,15 +87,15 @@ public final class Document {
       int end;
       if (close < 0) {
         end = text.length();
-        parts.add(malformed(position, text.substring(open), "unclosed call: '" + markup.open() + "' at position " + position
-            + " has no '" + markup.close() + "'"));
+        parts.add(malformed(position, text.substring(open), "unclosed call: the call at position " + position
+            + " has no closing string"));
       } else if (nextOpen >= 0 && nextOpen < close) {
-        end = close + markup.close().length();
+        end = close + closeString.length();
         parts.add(malformed(position, text.substring(open, end), "nested call: a call opens inside the call at position "
             + position + "; calls cannot contain calls"));
       } else {
-        end = close + markup.close().length();
-        parts.add(call(position, text.substring(open, end), text.substring(bodyStart, close), markup));
+        end = close + closeString.length();
+        parts.add(call(position, text.substring(open, end), text.substring(bodyStart, close), separator));
       }
       codePoints += text.codePointCount(open, end);
       i = end;
@@ -84,10 +107,10 @@ public final class Document {
     return new Document(parts);
   }
 
-  private static Part call(int position, String raw, String body, Markup markup) {
-    int sep = body.indexOf(markup.separator());
+  private static Part call(int position, String raw, String body, String separator) {
+    int sep = body.indexOf(separator);
     String callText = sep < 0 ? body : body.substring(0, sep);
-    Optional<String> answer = sep < 0 ? Optional.empty() : Optional.of(body.substring(sep + markup.separator().length()));
+    Optional<String> answer = sep < 0 ? Optional.empty() : Optional.of(body.substring(sep + separator.length()));
     try {
       return new Part(position, raw, Optional.of(CallText.parse(callText)), answer, Optional.empty());
     } catch (reckoner.tool.ToolException e) {

@@ -4,23 +4,43 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
+import java.util.concurrent.CompletableFuture;
+import java.util.function.UnaryOperator;
 import reckoner.call.Invoker;
 import reckoner.call.Outcome;
 import reckoner.call.Recorded;
-import java.util.concurrent.CompletableFuture;
 import reckoner.tool.ErrorCode;
 import reckoner.tool.ToolError;
+import reckoner.tool.ToolException;
 
 /**
  * Answers the calls written in text and splices the answers in place: one call ({@link #splice})
- * or every unanswered call of a document ({@link #fill}). An answer that would not parse back to
- * itself (it holds a markup string) is refused, never passed through. Thread-safe.
+ * or every unanswered call of a document ({@link #fill}).
+ *
+ * <p>The rule for what is spliced: a line is placed between the separator and the closing string
+ * only if the spliced call reads back as the same call with exactly that line, and the line holds
+ * none of the three markup strings. An answer that fails the rule becomes the call's outcome
+ * {@code unspliceable} (and is recorded so); an error line that fails it is shortened to
+ * {@code error: CODE}; a call for which even that fails is left as written. So a filled document
+ * parses back to the same calls, each with the line its outcome gave, and no markup string is ever
+ * spliced. Error lines never name the markup strings. Thread-safe.
  */
 public final class Filler {
-  private final Invoker invoker;
+  /** Runs one call written in text and records the outcome its review leaves. */
+  @FunctionalInterface
+  interface Caller {
+    Recorded call(CallText call, Tags tags, int position, UnaryOperator<Outcome> review);
+  }
+
+  private final Caller caller;
 
   public Filler(Invoker invoker) {
-    this.invoker = Objects.requireNonNull(invoker, "invoker");
+    this((call, tags, position, review) -> invoker.callText(call.tool(), call.version(), call.input(), tags.asOf(),
+        tags.run(), tags.refAt(position), review));
+  }
+
+  Filler(Caller caller) {
+    this.caller = Objects.requireNonNull(caller, "caller");
   }
 
   /** The tags a fill's calls travel with; any may be null. {@code ref} is a prefix: each call adds its position. */
@@ -32,8 +52,16 @@ public final class Filler {
     }
   }
 
-  /** One answered call: where it stood, what it was, what it came to, and when its record is durable. */
-  public record Spliced(int position, CallText call, Outcome outcome, String spliced, CompletableFuture<Void> durable) {
+  /**
+   * One answered call: where it stood, what it was, what it came to, what the document holds for
+   * it under {@code splice_error}, and when its record is durable.
+   *
+   * @param line the text spliced after the separator (the answer, or an error line), or null when
+   *     no line could be spliced and the call stays as written
+   * @param spliced the call as the document holds it: with {@code line}, or as written
+   */
+  public record Spliced(int position, CallText call, Outcome outcome, String line, String spliced,
+      CompletableFuture<Void> durable) {
     public boolean isOk() {
       return outcome.isOk();
     }
@@ -56,16 +84,17 @@ public final class Filler {
   }
 
   /** Answers one call written as {@code NAME(INPUT)}, with or without the markup around it. */
-  public Spliced splice(String text, Markup markup, Tags tags) throws reckoner.tool.ToolException {
+  public Spliced splice(String text, Markup markup, Tags tags) throws ToolException {
     String body = text.strip();
     if (body.startsWith(markup.open()) && body.endsWith(markup.close()) && body.length() >= markup.open().length() + markup.close().length()) {
       body = body.substring(markup.open().length(), body.length() - markup.close().length());
     }
-    if (body.contains(markup.open()) || body.contains(markup.close()) || body.contains(markup.separator())) {
-      throw new reckoner.tool.ToolException(ErrorCode.SYNTAX_ERROR, "a call to splice holds one call without an answer, "
-          + "as in " + markup.open() + "arith(1+1)" + markup.close());
+    if (markup.occursIn(body)) {
+      throw new ToolException(ErrorCode.SYNTAX_ERROR, "send one call without an answer, written NAME(INPUT) as in "
+          + "arith(1+1), with or without the markup around it");
     }
-    return answer(0, CallText.parse(body), markup, tags);
+    CallText call = CallText.parse(body);
+    return answer(0, call, markup.open() + call + markup.close(), "", markup, tags);
   }
 
   /** Answers every unanswered call of {@code document}; answered calls and literal text stay as they are. */
@@ -73,12 +102,14 @@ public final class Filler {
     StringBuilder out = new StringBuilder(document.length() + 64);
     List<Spliced> calls = new ArrayList<>();
     List<Malformed> malformed = new ArrayList<>();
-    for (Document.Part part : Document.parse(document, markup).parts()) {
+    List<Document.Part> parts = Document.parse(document, markup).parts();
+    for (int i = 0; i < parts.size(); i++) {
+      Document.Part part = parts.get(i);
       if (part.error().isPresent()) {
         malformed.add(new Malformed(part.position(), part.raw(), part.error().get()));
         out.append(part.raw());
       } else if (part.isUnanswered()) {
-        Spliced s = answer(part.position(), part.call().get(), markup, tags);
+        Spliced s = answer(part.position(), part.call().get(), part.raw(), following(parts, i, markup), markup, tags);
         calls.add(s);
         if (s.isOk() || onError == OnError.SPLICE_ERROR) {
           out.append(s.spliced());
@@ -92,24 +123,69 @@ public final class Filler {
     return new Filled(out.toString(), calls, malformed);
   }
 
-  private Spliced answer(int position, CallText call, Markup markup, Tags tags) {
-    Recorded recorded = invoker.callText(call.tool(), call.version(), call.input(), tags.asOf(), tags.run(), tags.refAt(position));
-    Outcome outcome = recorded.outcome();
-    String spliced = markup.open() + call + markup.separator() + outcome.text() + markup.close();
-    if (markup.occursIn(outcome.text()) || !parsesBack(spliced, call, outcome.text(), markup)) {
-      ToolError refused = ToolError.of(ErrorCode.UNSPLICEABLE, "the answer holds a markup string ('" + markup.open() + "', '"
-          + markup.separator() + "' or '" + markup.close() + "') and cannot be spliced");
-      outcome = new Outcome(outcome.invocationId(), outcome.tool(), outcome.canonical(), Optional.empty(), Optional.of(refused),
-          outcome.cached(), outcome.elapsedNanos());
-      spliced = markup.open() + call + markup.separator() + refused.text() + markup.close();
+  /**
+   * The document's text after part {@code i}, as far as an opening string that starts inside the
+   * spliced call could reach: an answer must not form one with the closing string and this text.
+   * (A part that follows and is itself a call starts with the opening string whether or not it is
+   * filled, so this text is the same either way.)
+   */
+  private static String following(List<Document.Part> parts, int i, Markup markup) {
+    int reach = markup.open().length();
+    StringBuilder sb = new StringBuilder();
+    for (int j = i + 1; j < parts.size() && sb.length() < reach; j++) {
+      sb.append(parts.get(j).raw());
     }
-    return new Spliced(position, call, outcome, spliced, recorded.durable());
+    return sb.length() <= reach ? sb.toString() : sb.substring(0, reach);
   }
 
-  /** Whether the spliced call reads back as exactly this call with exactly this answer. */
-  static boolean parsesBack(String spliced, CallText call, String answer, Markup markup) {
-    List<Document.Part> parts = Document.parse(spliced, markup).parts();
-    return parts.size() == 1 && parts.get(0).call().map(call::equals).orElse(false)
-        && parts.get(0).answer().map(answer::equals).orElse(false);
+  private Spliced answer(int position, CallText call, String raw, String following, Markup markup, Tags tags) {
+    Recorded recorded = caller.call(call, tags, position,
+        outcome -> outcome.isOk() ? review(call, outcome, following, markup) : outcome);
+    Outcome outcome = recorded.outcome();
+    String line = lineFor(call, outcome, following, markup);
+    String spliced = line == null ? raw : markup.open() + call + markup.separator() + line + markup.close();
+    return new Spliced(position, call, outcome, line, spliced, recorded.durable());
+  }
+
+  /** The answer as it stands, or {@code unspliceable} when splicing it would change how the document reads. */
+  private static Outcome review(CallText call, Outcome outcome, String following, Markup markup) {
+    String answer = outcome.text();
+    String why;
+    if (markup.occursIn(answer)) {
+      why = "the answer contains one of the markup strings, so splicing it would change how the document reads";
+    } else if (!readsBack(call, answer, following, markup)) {
+      why = "the answer begins or ends with part of a markup string, so the spliced call would not read back as this "
+          + "call and answer";
+    } else {
+      return outcome;
+    }
+    return new Outcome(outcome.invocationId(), outcome.tool(), outcome.canonical(), Optional.empty(),
+        Optional.of(ToolError.of(ErrorCode.UNSPLICEABLE, why)), outcome.cached(), outcome.elapsedNanos());
+  }
+
+  /** The line spliced for an outcome: its text, else for an error {@code error: CODE}, else null. */
+  static String lineFor(CallText call, Outcome outcome, String following, Markup markup) {
+    if (fits(call, outcome.text(), following, markup)) {
+      return outcome.text();
+    }
+    if (outcome.isOk()) {
+      return null; // cannot happen: an answer that does not fit was turned into unspliceable
+    }
+    String shortLine = "error: " + outcome.error().get().code().wireName();
+    return fits(call, shortLine, following, markup) ? shortLine : null;
+  }
+
+  private static boolean fits(CallText call, String line, String following, Markup markup) {
+    return !markup.occursIn(line) && readsBack(call, line, following, markup);
+  }
+
+  /**
+   * Whether the spliced call, followed by the document's {@code following} text, reads back as
+   * exactly this call with exactly this answer.
+   */
+  static boolean readsBack(CallText call, String answer, String following, Markup markup) {
+    String spliced = markup.open() + call + markup.separator() + answer + markup.close();
+    return Document.readsBack(spliced + following, spliced.length(), call.toString(), answer, markup.open(),
+        markup.separator(), markup.close());
   }
 }

@@ -6,7 +6,7 @@ import java.util.Optional;
 
 /** What a failed call leaves in a filled document. */
 public enum OnError {
-  /** The error's one-line text is spliced in as the answer: {@code <<arith(1/0) => error: domain_error: ...>>}. The default. */
+  /** The error's one-line text is spliced in as the answer: {@code <:arith(1/0) :: error: domain_error: ...:>}. The default. */
   SPLICE_ERROR,
   /** The call is removed from the document, markup and all. */
   DROP,

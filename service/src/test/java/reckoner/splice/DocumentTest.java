@@ -13,7 +13,7 @@ import reckoner.tool.ToolException;
 final class DocumentTest {
   @Test
   void parse_literalsCallsAndAnsweredCalls_keepEveryCharacter() {
-    String text = "a <<arith(1+1)>> b <<units@1(3 km to mi) => 1.86411 mi>> c";
+    String text = "a <:arith(1+1):> b <:units@1(3 km to mi) :: 1.86411 mi:> c";
     List<Document.Part> parts = Document.parse(text, Markup.DEFAULT).parts();
     assertEquals(5, parts.size());
     assertEquals("a ", parts.get(0).raw());
@@ -26,22 +26,22 @@ final class DocumentTest {
 
   @Test
   void parse_positions_countCodePoints() {
-    List<Document.Part> parts = Document.parse("😀😀<<arith(1)>>", Markup.DEFAULT).parts();
+    List<Document.Part> parts = Document.parse("😀😀<:arith(1):>", Markup.DEFAULT).parts();
     assertEquals(2, parts.get(1).position());
   }
 
   @Test
   void parse_nestedCall_isOneMalformedPart() {
-    List<Document.Part> parts = Document.parse("x <<arith(<<arith(1)>>)>> y", Markup.DEFAULT).parts();
+    List<Document.Part> parts = Document.parse("x <:arith(<:arith(1):>):> y", Markup.DEFAULT).parts();
     assertEquals(ErrorCode.SYNTAX_ERROR, parts.get(1).error().get().code());
     assertTrue(parts.get(1).error().get().detail().startsWith("nested call"));
   }
 
   @Test
   void parse_unclosedCall_keepsTheRestAsIs() {
-    List<Document.Part> parts = Document.parse("x <<arith(1+", Markup.DEFAULT).parts();
+    List<Document.Part> parts = Document.parse("x <:arith(1+", Markup.DEFAULT).parts();
     assertEquals(2, parts.size());
-    assertEquals("<<arith(1+", parts.get(1).raw());
+    assertEquals("<:arith(1+", parts.get(1).raw());
     assertTrue(parts.get(1).error().get().detail().startsWith("unclosed call"));
   }
 
@@ -67,9 +67,9 @@ final class DocumentTest {
 
   @Test
   void markup_stringsThatContainEachOther_areRefused() {
-    assertThrows(IllegalArgumentException.class, () -> new Markup("<", " => ", "<<"));
-    assertThrows(IllegalArgumentException.class, () -> new Markup("<<", ">>", ">>"));
-    assertThrows(IllegalArgumentException.class, () -> new Markup("<<", "   ", ">>"));
-    assertThrows(IllegalArgumentException.class, () -> new Markup("", " => ", ">>"));
+    assertThrows(IllegalArgumentException.class, () -> new Markup("<", " :: ", "<:"));
+    assertThrows(IllegalArgumentException.class, () -> new Markup("<:", ":>", ":>"));
+    assertThrows(IllegalArgumentException.class, () -> new Markup("<:", "   ", ":>"));
+    assertThrows(IllegalArgumentException.class, () -> new Markup("", " :: ", ":>"));
   }
 }
