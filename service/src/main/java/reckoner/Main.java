@@ -72,8 +72,8 @@ public final class Main implements Runnable {
 
   @Command(name = "fill", mixinStandardHelpOptions = true,
       description = {"Answer every call in a JSON Lines file of documents, offline, with the service's engine.",
-          "Input lines: {\"id\": ..., \"document\": \"text with <<arith(1+1)>> calls\"}.",
-          "Output lines, in input order: {\"id\", \"document\", \"calls\", \"malformed\"}."})
+          "Input lines: {\"id\": ..., \"document\": \"text with <:arith(1+1):> calls\", \"as_of\": \"2024-06-12\"?}.",
+          "Output lines, in input order: {\"id\", ...} and what POST /v1/fill answers for the document."})
   static final class Fill implements Callable<Integer> {
     @Spec CommandSpec spec;
 
@@ -96,11 +96,19 @@ public final class Main implements Runnable {
     @Option(names = "--progress", negatable = true, description = "Show a progress bar (default: when on a terminal).")
     Boolean progress;
 
+    @Option(names = "--as-of", description = {"The reference time of every document without an as_of of its own",
+        "(ISO 8601 date or date-time); without either, calls that need one read the clock."})
+    String asOf;
+
     @Override
     public Integer call() throws Exception {
       OnError policy = OnError.parse(onError).orElse(null);
       if (policy == null) {
         System.err.println("reckoner: --on-error must be splice_error, drop or keep");
+        return 2;
+      }
+      if (asOf != null && !FillCommand.isReferenceTime(asOf)) {
+        System.err.println("reckoner: --as-of must be an ISO 8601 date or date-time, such as 2024-06-12 or 2024-06-12T09:30:00Z");
         return 2;
       }
       if (!Files.isRegularFile(input)) {
@@ -121,7 +129,7 @@ public final class Main implements Runnable {
         PrintStream err = new PrintStream(System.err, true, StandardCharsets.UTF_8);
         boolean show = progress != null ? progress : System.console() != null;
         FillCommand.Summary summary = new FillCommand(new Filler(engine.invoker()), Json.newMapper(), calls)
-            .run(input, output, engine.markup(), policy, run, err, show);
+            .run(input, output, new FillCommand.Options(engine.markup(), policy, run, asOf), err, show);
         err.print(summary.describe());
         return summary.unrecordedDocuments() == 0 ? 0 : 1;
       } finally {

@@ -17,21 +17,24 @@ import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Future;
 import java.util.concurrent.atomic.AtomicLong;
+import java.util.List;
 import reckoner.io.LineReader;
+import reckoner.results.ResultJson;
 import reckoner.splice.Filler;
 import reckoner.splice.Markup;
 import reckoner.splice.OnError;
 import tools.jackson.core.JacksonException;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.databind.json.JsonMapper;
-import tools.jackson.databind.node.ArrayNode;
 import tools.jackson.databind.node.ObjectNode;
 
 /**
  * Fills a JSON Lines file of documents offline, in-process, with the service's own engine. Input
- * lines are {@code {"id": ..., "document": "..."}}; output lines, in input order, are
- * {@code {"id", "document", "calls": [...], "malformed": [...]}}, or {@code {"id", "error"}} for an
- * input line that is not such an object. Streams in constant memory.
+ * lines are {@code {"id": ..., "document": "...", "as_of": "..."?}}; output lines, in input order,
+ * are {@code {"id", ...}} followed by exactly the members {@code POST /v1/fill} answers for the same
+ * document ({@link ResultJson#filled}), or {@code {"id", "error"}} for a line that cannot be filled.
+ * Each document's calls carry the ref {@code doc-ID:pos-N}, with the id percent-encoded where it is
+ * not printable ASCII ({@link #refOf}). Streams in constant memory.
  */
 public final class FillCommand {
   /** Documents in flight at once. */
@@ -72,9 +75,20 @@ public final class FillCommand {
     this.executor = executor;
   }
 
+  /**
+   * How documents are filled: the markup, what a failed call leaves, the run tag (may be null),
+   * and the reference time of lines without an {@code as_of} of their own (may be null: the clock).
+   */
+  public record Options(Markup markup, OnError onError, String run, String asOf) {
+    public Options {
+      java.util.Objects.requireNonNull(markup, "markup");
+      java.util.Objects.requireNonNull(onError, "onError");
+    }
+  }
+
   /** Fills {@code input} into {@code output}; progress goes to {@code progressOut} when {@code showProgress}. */
-  public Summary run(Path input, Path output, Markup markup, OnError onError, String run, PrintStream progressOut,
-      boolean showProgress) throws IOException, InterruptedException {
+  public Summary run(Path input, Path output, Options options, PrintStream progressOut, boolean showProgress)
+      throws IOException, InterruptedException {
     Progress progress = new Progress(progressOut, Files.size(input), showProgress, System::nanoTime);
     Counters counters = new Counters();
     BlockingQueue<Future<Done>> window = new ArrayBlockingQueue<>(WINDOW);
@@ -91,7 +105,7 @@ public final class FillCommand {
             continue;
           }
           LineReader.Line current = line;
-          window.put(executor.submit(() -> fillLine(current, markup, onError, run, counters, progress)));
+          window.put(executor.submit(() -> fillLine(current, options, counters, progress)));
         }
       } finally {
         window.put(end);
@@ -105,8 +119,7 @@ public final class FillCommand {
   /** A filled line and the stage of its calls' records; the writer waits for it before writing. */
   private record Done(byte[] line, CompletableFuture<Void> durable) {}
 
-  private Done fillLine(LineReader.Line line, Markup markup, OnError onError, String run, Counters counters,
-      Progress progress) {
+  private Done fillLine(LineReader.Line line, Options options, Counters counters, Progress progress) {
     ObjectNode result = json.createObjectNode();
     JsonNode doc;
     try {
@@ -114,41 +127,83 @@ public final class FillCommand {
     } catch (JacksonException e) {
       doc = null;
     }
-    if (doc == null || !doc.isObject() || !doc.path("document").isString()) {
+    String problem = problemWith(doc);
+    String ref = problem == null && doc.has("id") ? refOf(doc.get("id")) : null;
+    if (problem == null && doc.has("id") && ref.length() > MAX_REF) {
+      problem = "the id is too long: as a ref (doc-ID, percent-encoded) it takes " + ref.length() + " characters, at most "
+          + MAX_REF;
+    }
+    if (doc != null && doc.isObject() && doc.has("id")) {
+      result.set("id", doc.get("id"));
+    }
+    if (problem != null) {
       counters.badLines.incrementAndGet();
-      if (doc != null && doc.isObject() && doc.has("id")) {
-        result.set("id", doc.get("id"));
-      }
-      result.put("error", "each line must be a JSON object with \"document\", a string");
+      result.put("error", "line " + line.number() + ": " + problem);
       progress.done(0);
       return new Done(json.writeValueAsBytes(result), CompletableFuture.completedFuture(null));
     }
-    String ref = doc.path("id").isString() || doc.path("id").isIntegralNumber() ? "doc-" + doc.get("id").asString() : null;
-    if (ref != null && (ref.length() > 180 || !ref.chars().allMatch(c -> c >= 0x20 && c < 0x7f))) {
-      ref = null;
-    }
-    Filler.Filled filled = filler.fill(doc.get("document").stringValue(), markup, onError, new Filler.Tags(run, ref, null));
-    if (doc.has("id")) {
-      result.set("id", doc.get("id"));
-    }
-    result.put("document", filled.document());
-    ArrayNode calls = result.putArray("calls");
-    for (Filler.Spliced c : filled.calls()) {
-      ObjectNode n = calls.addObject();
-      n.put("position", c.position());
-      n.put("call", c.call().toString());
-      n.put("ok", c.isOk());
-      n.put("text", c.outcome().text());
-      c.outcome().error().ifPresent(e -> n.put("code", e.code().wireName()));
-      counters.count(c);
-    }
-    ArrayNode malformed = result.putArray("malformed");
-    for (Filler.Malformed m : filled.malformed()) {
-      malformed.addObject().put("position", m.position()).put("text", m.error().text());
-    }
+    String asOf = doc.has("as_of") ? doc.get("as_of").stringValue() : options.asOf();
+    Filler.Filled filled = filler.fill(doc.get("document").stringValue(), options.markup(), options.onError(),
+        new Filler.Tags(options.run(), ref, asOf));
+    ResultJson.filled(result, filled);
+    filled.calls().forEach(counters::count);
     counters.documents.incrementAndGet();
     progress.done(filled.calls().size());
     return new Done(json.writeValueAsBytes(result), filled.durable());
+  }
+
+  /** Why a line cannot be filled, or null when it can. */
+  private static String problemWith(JsonNode doc) {
+    if (doc == null || !doc.isObject() || !doc.path("document").isString()) {
+      return "each line must be a JSON object with \"document\", a string";
+    }
+    JsonNode id = doc.get("id");
+    if (id != null && !id.isString() && !id.isIntegralNumber()) {
+      return "the id must be a string or a whole number, so that the calls' refs can name it";
+    }
+    JsonNode asOf = doc.get("as_of");
+    if (asOf != null && (!asOf.isString() || !isReferenceTime(asOf.stringValue()))) {
+      return "as_of must be an ISO 8601 date or date-time, such as 2024-06-12 or 2024-06-12T09:30:00Z";
+    }
+    return null;
+  }
+
+  /** Longest ref a document's calls get before their {@code :pos-N}; the ledger takes refs of up to 200 characters. */
+  static final int MAX_REF = 180;
+
+  /**
+   * The ref prefix of a document's calls: {@code doc-} and the id, with every character outside
+   * printable ASCII, and {@code %} itself, written as the percent-encoded bytes of its UTF-8 form
+   * (RFC 3986, section 2.1), so that any id can be read back exactly ({@code döc-1} is
+   * {@code doc-d%C3%B6c-1}).
+   */
+  static String refOf(JsonNode id) {
+    String text = id.isString() ? id.stringValue() : id.asString();
+    StringBuilder sb = new StringBuilder("doc-");
+    for (byte b : text.getBytes(java.nio.charset.StandardCharsets.UTF_8)) {
+      int c = b & 0xff;
+      if (c >= 0x20 && c < 0x7f && c != '%') {
+        sb.append((char) c);
+      } else {
+        sb.append('%').append(Character.toUpperCase(Character.forDigit(c >> 4, 16)))
+            .append(Character.toUpperCase(Character.forDigit(c & 0xf, 16)));
+      }
+    }
+    return sb.toString();
+  }
+
+  /** Whether {@code text} is an ISO 8601 calendar date or date-time (local, with an offset, or with a zone). */
+  public static boolean isReferenceTime(String text) {
+    for (java.time.format.DateTimeFormatter f : List.of(java.time.format.DateTimeFormatter.ISO_LOCAL_DATE,
+        java.time.format.DateTimeFormatter.ISO_DATE_TIME)) {
+      try {
+        f.parse(text);
+        return true;
+      } catch (java.time.format.DateTimeParseException e) {
+        // try the next form
+      }
+    }
+    return false;
   }
 
   private static void write(BlockingQueue<Future<Done>> window, Future<Done> end, OutputStream out, Counters counters) {

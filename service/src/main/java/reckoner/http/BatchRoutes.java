@@ -17,6 +17,7 @@ import java.util.concurrent.Future;
 import reckoner.call.CallRequest;
 import reckoner.call.Invoker;
 import reckoner.call.Recorded;
+import reckoner.results.ResultJson;
 import reckoner.io.LineReader;
 import reckoner.tool.ErrorCode;
 import reckoner.tool.ToolError;
@@ -226,26 +227,26 @@ final class BatchRoutes {
 
     ObjectNode settled() {
       ApiException unrecorded = durable == null ? null : Durable.failure(durable);
-      return unrecorded == null ? result : Outcomes.refused(responses.object(), id, unrecorded.error(), 0);
+      return unrecorded == null ? result : ResultJson.refused(responses.object(), id, unrecorded.error(), 0);
     }
 
     byte[] settledBytes() {
       ApiException unrecorded = durable == null ? null : Durable.failure(durable);
       return unrecorded == null ? (bytes != null ? bytes : responses.json().writeValueAsBytes(result))
-          : responses.json().writeValueAsBytes(Outcomes.refused(responses.object(), id, unrecorded.error(), 0));
+          : responses.json().writeValueAsBytes(ResultJson.refused(responses.object(), id, unrecorded.error(), 0));
     }
   }
 
   private Pending runLine(LineReader.Line line, String run, String asOf) {
     if (line.tooLong()) {
-      return new Pending(Outcomes.refused(responses.object(), null, ToolError.of(ErrorCode.PAYLOAD_TOO_LARGE,
+      return new Pending(ResultJson.refused(responses.object(), null, ToolError.of(ErrorCode.PAYLOAD_TOO_LARGE,
           "line " + line.number() + " is longer than " + bodies.limit() + " bytes"), line.number()), null, null);
     }
     JsonNode item;
     try {
       item = responses.json().readTree(line.bytes());
     } catch (JacksonException e) {
-      return new Pending(Outcomes.refused(responses.object(), null, ToolError.of(ErrorCode.INVALID_ARGUMENT,
+      return new Pending(ResultJson.refused(responses.object(), null, ToolError.of(ErrorCode.INVALID_ARGUMENT,
           "line " + line.number() + " is not valid JSON: " + Bodies.describe(e)), line.number()), null, null);
     }
     return runItem(item, run, asOf, line.number());
@@ -257,9 +258,9 @@ final class BatchRoutes {
       CallRequest request = request(item, run, asOf);
       Recorded recorded = invoker.call(request);
       metrics.record(recorded.outcome());
-      return new Pending(Outcomes.write(responses.object(), id, recorded.outcome()), id, recorded.durable());
+      return new Pending(ResultJson.outcome(responses.object(), id, recorded.outcome()), id, recorded.durable());
     } catch (ApiException e) {
-      return new Pending(Outcomes.refused(responses.object(), id, e.error(), lineNumber), id, null);
+      return new Pending(ResultJson.refused(responses.object(), id, e.error(), lineNumber), id, null);
     }
   }
 

@@ -35,7 +35,7 @@ final class FillCommandTest {
     Path in = dir.resolve("docs.jsonl");
     StringBuilder sb = new StringBuilder();
     for (int i = 0; i < 3000; i++) {
-      sb.append(i == 17 ? "not json\n" : "{\"id\":" + i + ",\"document\":\"n=" + i + ": <<arith(" + (i % 10) + "/4)>> and <<arith(1/0)>>\"}\n");
+      sb.append(i == 17 ? "not json\n" : "{\"id\":" + i + ",\"document\":\"n=" + i + ": <:arith(" + (i % 10) + "/4):> and <:arith(1/0):>\"}\n");
     }
     Files.writeString(in, sb.toString());
     Path out = dir.resolve("filled.jsonl");
@@ -45,7 +45,7 @@ final class FillCommandTest {
     ByteArrayOutputStream progress = new ByteArrayOutputStream();
     FillCommand.Summary s;
     try {
-      s = new FillCommand(new Filler(invoker), JSON, pool).run(in, out, Markup.DEFAULT, OnError.SPLICE_ERROR, "test-run",
+      s = new FillCommand(new Filler(invoker), JSON, pool).run(in, out, new FillCommand.Options(Markup.DEFAULT, OnError.SPLICE_ERROR, "test-run", null),
           new PrintStream(progress, true, StandardCharsets.UTF_8), true);
     } finally {
       pool.shutdown();
@@ -61,7 +61,7 @@ final class FillCommandTest {
       assertEquals(i, n.get("id").asInt());
       String expected = new java.math.BigDecimal(i % 10).divide(new java.math.BigDecimal(4)).setScale(2, java.math.RoundingMode.HALF_EVEN)
           .stripTrailingZeros().toPlainString();
-      assertEquals("n=" + i + ": <<arith(" + (i % 10) + "/4) => " + expected + ">> and <<arith(1/0) => error: domain_error: division by zero>>",
+      assertEquals("n=" + i + ": <:arith(" + (i % 10) + "/4) :: " + expected + ":> and <:arith(1/0) :: error: domain_error: division by zero:>",
           n.get("document").asString());
     }
     assertEquals(2999, s.documents());
@@ -83,5 +83,48 @@ final class FillCommandTest {
     p.done(10);
     now[0] = 2_000_000_000L; // 2 s in, a quarter read: 6 s left
     assertEquals("[#######.....................]  25%  1 docs  10 calls  5 calls/s  00:06 left", p.line(now[0], false));
+  }
+
+  @Test
+  void refOf_percentEncodesWhatIsNotPrintableAscii_reversibly() {
+    assertEquals("doc-d%C3%B6c-1", FillCommand.refOf(JSON.getNodeFactory().stringNode("döc-1")));
+    assertEquals("doc-100%25 sure", FillCommand.refOf(JSON.getNodeFactory().stringNode("100% sure")));
+    assertEquals("doc-42", FillCommand.refOf(JSON.getNodeFactory().numberNode(42)));
+    assertEquals("doc-a%0Ab", FillCommand.refOf(JSON.getNodeFactory().stringNode("a\nb")));
+    String id = "é😀%\t z";
+    String ref = FillCommand.refOf(JSON.getNodeFactory().stringNode(id));
+    assertEquals(id, java.net.URLDecoder.decode(ref.substring(4).replace("+", "%2B"), StandardCharsets.UTF_8));
+  }
+
+  @Test
+  void run_asOf_fromTheLineOverTheOption_andIdsThatCannotBeRefs_refused(@TempDir Path dir) throws Exception {
+    Path in = dir.resolve("docs.jsonl");
+    Files.writeString(in, String.join("\n",
+        "{\"id\":\"döc-1\",\"document\":\"<:dates@1(45 days ago):>\"}",
+        "{\"id\":2,\"document\":\"<:dates@1(45 days ago):>\",\"as_of\":\"2019-06-14\"}",
+        "{\"id\":{\"a\":1},\"document\":\"<:arith(1):>\"}",
+        "{\"id\":3,\"document\":\"<:arith(1):>\",\"as_of\":\"yesterday\"}",
+        "{\"id\":\"" + "x".repeat(200) + "\",\"document\":\"<:arith(1):>\"}") + "\n");
+    Path out = dir.resolve("filled.jsonl");
+    Invoker invoker = new Invoker(ToolCatalog.of(ToolRegistry.of(Tools.demo()), new SpecLoader(JSON)), Clock.systemUTC());
+    ExecutorService pool = Executors.newFixedThreadPool(2);
+    FillCommand.Summary s;
+    try {
+      s = new FillCommand(new Filler(invoker), JSON, pool).run(in, out,
+          new FillCommand.Options(Markup.DEFAULT, OnError.SPLICE_ERROR, null, "2024-03-01"),
+          new PrintStream(new ByteArrayOutputStream(), true, StandardCharsets.UTF_8), false);
+    } finally {
+      pool.shutdown();
+    }
+    List<String> lines = Files.readAllLines(out);
+    assertEquals("<:dates@1(45 days ago) :: 2024-01-16:>", JSON.readTree(lines.get(0)).get("document").asString());
+    assertEquals("<:dates@1(45 days ago) :: 2019-04-30:>", JSON.readTree(lines.get(1)).get("document").asString());
+    assertTrue(JSON.readTree(lines.get(0)).get("calls").get(0).get("invocation_id").asString().matches("[0-9a-f-]{36}"));
+    assertEquals("line 3: the id must be a string or a whole number, so that the calls' refs can name it",
+        JSON.readTree(lines.get(2)).get("error").asString());
+    assertTrue(JSON.readTree(lines.get(3)).get("error").asString().startsWith("line 4: as_of must be an ISO 8601 date"));
+    assertTrue(JSON.readTree(lines.get(4)).get("error").asString().startsWith("line 5: the id is too long"));
+    assertEquals(2, s.documents());
+    assertEquals(3, s.badLines());
   }
 }
