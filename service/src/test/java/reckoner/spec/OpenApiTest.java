@@ -49,6 +49,36 @@ final class OpenApiTest {
   }
 
   @Test
+  void everyOperation_describesItsRequestAndEveryResponse() {
+    ObjectNode doc = OpenApi.assemble(CATALOG, JSON, "test");
+    ParseOptions options = new ParseOptions();
+    options.setResolve(true);
+    OpenAPI api = new OpenAPIV3Parser().readContents(JSON.writeValueAsString(doc), null, options).getOpenAPI();
+    api.getPaths().forEach((path, item) -> item.readOperationsMap().forEach((method, op) -> {
+      String where = method + " " + path;
+      assertNotNull(op.getOperationId(), where);
+      assertTrue(op.getResponses() != null && op.getResponses().containsKey("200"), where + " has a 200");
+      op.getResponses().forEach((status, r) -> {
+        assertTrue(r.getDescription() != null && !r.getDescription().isBlank(), where + " " + status + " described");
+        assertTrue(r.getContent() != null && !r.getContent().isEmpty(), where + " " + status + " has content");
+        r.getContent().forEach((type, media) -> assertNotNull(media.getSchema(), where + " " + status + " " + type));
+      });
+      if (method == io.swagger.v3.oas.models.PathItem.HttpMethod.POST && !path.equals("/v1/admin/facts/reload")) {
+        assertNotNull(op.getRequestBody(), where + " has a request body");
+        io.swagger.v3.oas.models.media.Schema<?> body = op.getRequestBody().getContent().get("application/json").getSchema();
+        assertTrue(body.get$ref() != null || (body.getProperties() != null && !body.getProperties().isEmpty()),
+            where + ": the JSON body has a real schema, not just {type: object}");
+        assertTrue(op.getResponses().keySet().stream().anyMatch(k -> k.startsWith("4")), where + " lists its refusals");
+      }
+    }));
+    for (String path : List.of("/v1/batch", "/v1/splice", "/v1/fill")) {
+      String ref = api.getPaths().get(path).getPost().getRequestBody().getContent().get("application/json").getSchema().get$ref();
+      String name = ref.substring(ref.lastIndexOf('/') + 1);
+      assertTrue(api.getComponents().getSchemas().get(name).getRequired().size() >= 1, path + " body names its required members");
+    }
+  }
+
+  @Test
   void everySpec_validatesAgainstTheDraft202012MetaSchema() {
     SchemaRegistry registry = SchemaRegistry.withDefaultDialect(SpecificationVersion.DRAFT_2020_12);
     Schema meta = registry.getSchema(SchemaLocation.of("https://json-schema.org/draft/2020-12/schema"));
