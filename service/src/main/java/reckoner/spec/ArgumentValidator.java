@@ -19,15 +19,34 @@ public final class ArgumentValidator {
   private static final SchemaRegistry REGISTRY = SchemaRegistry.withDefaultDialect(SpecificationVersion.DRAFT_2020_12,
       builder -> builder.schemaRegistryConfig(SchemaRegistryConfig.builder().locale(Locale.ENGLISH).build()));
   private final Schema schema;
+  private final List<String> alternatives; // the members of which exactly one must be given, in words; empty: old wording
 
-  private ArgumentValidator(Schema schema) {
+  private ArgumentValidator(Schema schema, List<String> alternatives) {
     this.schema = schema;
+    this.alternatives = alternatives;
   }
 
-  public static ArgumentValidator of(ToolSpec spec) {
+  /**
+   * A validator for {@code spec}. With {@code plainWords}, a call that gives more than one (or none)
+   * of the members a top-level {@code oneOf} asks one of is told so in words ("give either expr or
+   * text, not both"); without it, the validator's own sentence is kept, as version 1 published it.
+   */
+  public static ArgumentValidator of(ToolSpec spec, boolean plainWords) {
     Schema schema = REGISTRY.getSchema(spec.argumentSchema());
     schema.initializeValidators(); // compile now, not on the first call
-    return new ArgumentValidator(schema);
+    List<String> alternatives = new java.util.ArrayList<>();
+    if (plainWords) {
+      for (JsonNode branch : spec.argumentSchema().path("oneOf")) {
+        JsonNode required = branch.path("required");
+        if (required.size() == 1 && branch.size() == 1) {
+          alternatives.add(required.get(0).asString());
+        }
+      }
+      if (alternatives.size() != spec.argumentSchema().path("oneOf").size()) {
+        alternatives.clear(); // a oneOf of other shapes keeps the validator's sentence
+      }
+    }
+    return new ArgumentValidator(schema, List.copyOf(alternatives));
   }
 
   /**
@@ -48,6 +67,14 @@ public final class ArgumentValidator {
     }
     if (errors.isEmpty()) {
       return Optional.empty();
+    }
+    if (!alternatives.isEmpty() && "oneOf".equals(errors.get(0).getKeyword())) {
+      long given = alternatives.stream().filter(args::has).count();
+      if (given != 1) {
+        String choice = alternatives.size() == 2 ? alternatives.get(0) + " or " + alternatives.get(1)
+            : String.join(", ", alternatives.subList(0, alternatives.size() - 1)) + " or " + alternatives.get(alternatives.size() - 1);
+        return Optional.of(given == 0 ? "give " + choice : "give either " + choice + ", not " + (given == 2 ? "both" : "several"));
+      }
     }
     return Optional.of(describe(errors.get(0)) + (errors.size() > 1 ? " (and " + (errors.size() - 1) + " more)" : ""));
   }

@@ -29,7 +29,8 @@ public final class ToolCatalog {
     Map<ToolId, Entry> entries = new TreeMap<>();
     for (Tool tool : registry.all()) {
       ToolSpec spec = loader.load(tool.id());
-      entries.put(tool.id(), new Entry(tool, spec, ArgumentValidator.of(spec)));
+      // Version 1 keeps the wording its refusals were published with; later versions say in words what is wrong.
+      entries.put(tool.id(), new Entry(tool, spec, ArgumentValidator.of(spec, tool.id().version() >= 2)));
     }
     return new ToolCatalog(registry, Collections.unmodifiableMap(entries));
   }
