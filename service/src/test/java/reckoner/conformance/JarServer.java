@@ -191,6 +191,23 @@ public final class JarServer implements AutoCloseable {
     }
   }
 
+  /**
+   * Sends {@code request} byte for byte on a new connection (a request the JDK's client would
+   * refuse to send: raw header bytes, broken framing) and returns everything the server wrote back
+   * before closing, decoded as ISO-8859-1 (so every byte survives).
+   */
+  public String raw(byte[] request) {
+    try (java.net.Socket socket = new java.net.Socket(java.net.InetAddress.getLoopbackAddress(), port)) {
+      socket.setSoTimeout(30_000);
+      socket.getOutputStream().write(request);
+      socket.getOutputStream().flush();
+      socket.shutdownOutput();
+      return new String(socket.getInputStream().readAllBytes(), StandardCharsets.ISO_8859_1);
+    } catch (IOException e) {
+      throw new IllegalStateException(e);
+    }
+  }
+
   public HttpResponse<String> get(String path) {
     return send("GET", path, Map.of(), null);
   }
