@@ -53,7 +53,10 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
     }
     InvocationIds ids = new InvocationIds(clock);
     ledger.newestBeyond(0).ifPresent(newest -> ids.startAfter(UUID.fromString(newest))); // ids keep rising across restarts
-    return new Engine(catalog, cache, new Invoker(catalog, clock, ids, cache, sink), markup, facts, ledger, writer, retention);
+    Invoker.Limits limits = new Invoker.Limits(config.bounds().maxArgumentChars(),
+        java.util.concurrent.TimeUnit.MILLISECONDS.toNanos(config.bounds().callDeadlineMillis()));
+    return new Engine(catalog, cache, new Invoker(catalog, clock, ids, cache, sink, limits), markup, facts, ledger, writer,
+        retention);
   }
 
   /** The ledger store the settings name, its schema created or migrated. */

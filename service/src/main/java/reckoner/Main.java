@@ -5,6 +5,7 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Clock;
+import java.util.List;
 import java.util.concurrent.Callable;
 import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.ExecutorService;
@@ -24,7 +25,7 @@ import reckoner.splice.OnError;
 /** The command line: {@code reckoner serve} and {@code reckoner fill}. Wiring only. */
 @Command(name = "reckoner", mixinStandardHelpOptions = true, version = "reckoner " + Service.VERSION,
     description = "Deterministic, versioned tools for language-model agents.",
-    subcommands = {Main.Serve.class, Main.Fill.class})
+    subcommands = {Main.Serve.class, Main.Fill.class, Main.Key.class})
 public final class Main implements Runnable {
   public static void main(String[] args) {
     System.exit(commandLine().execute(args));
@@ -136,6 +137,49 @@ public final class Main implements Runnable {
         calls.shutdown();
         engine.close(); // every record written before exit
       }
+    }
+  }
+
+  @Command(name = "key", mixinStandardHelpOptions = true,
+      description = {"Make a new API key: a random secret and the line for the keys file.",
+          "The line goes to standard output (append it to the keys file); the secret goes to standard error,",
+          "once: it is not stored anywhere, so give it to the key's owner now.",
+          "Example: reckoner key --id team-a --scope invoke --scope ledger:read --rate 200 >> keys.jsonl"})
+  static final class Key implements Callable<Integer> {
+    @Option(names = "--id", required = true, description = "The key's id, as the ledger records it (letters, digits, . _ -).")
+    String id;
+
+    @Option(names = "--scope", required = true, description = "invoke, ledger:read or admin; repeatable.")
+    List<String> scopes;
+
+    @Option(names = "--rate", description = "Calls a second the key may make (default: no limit).")
+    Double rate;
+
+    @Override
+    public Integer call() {
+      java.util.Set<reckoner.access.Scope> set = java.util.EnumSet.noneOf(reckoner.access.Scope.class);
+      for (String s : scopes) {
+        java.util.Optional<reckoner.access.Scope> scope = reckoner.access.Scope.parse(s);
+        if (scope.isEmpty()) {
+          System.err.println("reckoner: unknown scope '" + s + "'; scopes are invoke, ledger:read, admin");
+          return 2;
+        }
+        set.add(scope.get());
+      }
+      if (rate != null && !(rate > 0)) {
+        System.err.println("reckoner: --rate must be a number of calls a second above 0");
+        return 2;
+      }
+      reckoner.access.KeyMaker.NewKey key;
+      try {
+        key = reckoner.access.KeyMaker.make(id, set, rate == null ? 0 : rate, new java.security.SecureRandom(), Json.newMapper());
+      } catch (IllegalArgumentException e) {
+        System.err.println("reckoner: " + e.getMessage());
+        return 2;
+      }
+      System.out.println(key.line());
+      System.err.println("secret for key '" + id + "' (shown once, stored nowhere): " + key.secret());
+      return 0;
     }
   }
 }

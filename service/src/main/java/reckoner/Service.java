@@ -18,6 +18,10 @@ import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
+import reckoner.access.KeyStore;
+import reckoner.access.KeysFileException;
+import reckoner.access.RateLimits;
+import reckoner.access.StreamLimits;
 import reckoner.config.ConfigException;
 import reckoner.config.ServiceConfig;
 import reckoner.facts.FactsWatcher;
@@ -41,17 +45,40 @@ public final class Service implements AutoCloseable {
   private final ExecutorService calls;
   private final FactsWatcher watcher; // null when polling is off
   private final Engine engine;
+  private final KeyStore keys; // null: no keys file
+  private final java.util.List<HttpApi.RouteInfo> routes;
 
-  private Service(Javalin http, ExecutorService calls, FactsWatcher watcher, Engine engine) {
+  private Service(Javalin http, ExecutorService calls, FactsWatcher watcher, Engine engine, KeyStore keys,
+      java.util.List<HttpApi.RouteInfo> routes) {
     this.http = http;
     this.calls = calls;
     this.watcher = watcher;
     this.engine = engine;
+    this.keys = keys;
+    this.routes = routes;
+  }
+
+  /** The keys file's keys, watched for changes; null when there is no keys file. A bad file stops the start. */
+  private static KeyStore openKeys(ServiceConfig.Access access, JsonMapper json) {
+    if (access.keysFile() == null) {
+      return null;
+    }
+    try {
+      return KeyStore.open(access.keysFile(), json).startWatching(java.time.Duration.ofMillis(access.keysPollMillis()));
+    } catch (KeysFileException e) {
+      throw new ConfigException("keys-file: " + e.getMessage());
+    }
+  }
+
+  /** Every route the server serves, with the scope it needs. */
+  public java.util.List<HttpApi.RouteInfo> routes() {
+    return routes;
   }
 
   public static Service start(ServiceConfig config, Clock clock) {
     requirePortFree(config.host(), config.port()); // before the ledger opens: a second start changes nothing
     JsonMapper json = Json.newMapper();
+    KeyStore keys = openKeys(config.access(), json); // likewise: a bad keys file stops the start before anything opens
     PrometheusMeterRegistry metrics = new PrometheusMeterRegistry(PrometheusConfig.DEFAULT);
     Timer commitTime = Timer.builder("reckoner.ledger.commit").description("Time to commit one group of invocations")
         .publishPercentileHistogram().register(metrics);
@@ -90,23 +117,32 @@ public final class Service implements AutoCloseable {
         : null;
 
     HttpApi.Settings settings = new HttpApi.Settings(config.maxBodyBytes(), config.maxBatchBytes(), engine.markup(),
-        OpenApi.assemble(catalog, json, VERSION), engine::isReady, calls, engine.facts(), engine.ledger());
-    Javalin http = HttpApi.create(engine.invoker(), metrics, json, settings);
+        OpenApi.assemble(catalog, json, VERSION), engine::isReady, calls, engine.facts(), engine.ledger(), keys,
+        new RateLimits(config.access().rateBurstSeconds()), new StreamLimits(config.access().maxStreamsPerKey()),
+        config.bounds());
+    HttpApi.Built built = HttpApi.create(engine.invoker(), metrics, json, settings);
+    Javalin http = built.app();
     try {
       http.start(config.host(), config.port());
     } catch (RuntimeException e) { // the port was taken between the check and the start
       calls.shutdown();
       engine.close();
+      if (keys != null) {
+        keys.close();
+      }
       throw new ConfigException(cannotListen(config.host(), config.port(), e));
     }
     LOG.info("serving {} tool versions on http://{}:{} (data dir {})", catalog.all().size(), config.host(), http.port(),
         config.dataDir());
-    if (config.openAccess()) {
+    if (keys != null) {
+      LOG.info("API keys in force from {}; every endpoint but health, metrics, the OpenAPI document, tool specs and "
+          + "problem types needs one", keys.file());
+    } else if (config.openAccess()) {
       LOG.warn("open-access is on: every caller who can reach {} may call every tool", config.host());
     } else {
       LOG.info("no API keys configured: listening on loopback only");
     }
-    return new Service(http, calls, watcher, engine);
+    return new Service(http, calls, watcher, engine, keys, built.routes());
   }
 
   /** Fails with one line naming the address when it cannot be bound (in use, not an address of this host). */
@@ -151,6 +187,9 @@ public final class Service implements AutoCloseable {
   public void close() {
     if (watcher != null) {
       watcher.close();
+    }
+    if (keys != null) {
+      keys.close();
     }
     http.stop(); // no new calls; calls in flight finish
     calls.shutdown();

@@ -60,6 +60,15 @@ final class SettingsTest {
     trial("retention-days", "30");
     trial("retention-max-records", "1000000");
     trial("retention-max-bytes", "123456789");
+    trial("keys-file", "trial-keys.jsonl", "host", "0.0.0.0");
+    trial("keys-poll-ms", "500");
+    trial("rate-burst-seconds", "2.5");
+    trial("max-streams-per-key", "9");
+    trial("max-batch-calls", "77");
+    trial("max-argument-chars", "5000");
+    trial("call-deadline-ms", "250");
+    trial("http-idle-timeout-ms", "5000");
+    trial("max-header-bytes", "16384");
   }
 
   private static void trial(String name, String value, String... companions) {
@@ -194,23 +203,32 @@ final class SettingsTest {
 
   /** The config's value for a setting, read from the record component of the same name, as text. */
   private static void assertSetting(ServiceConfig config, String name, String expected) {
-    String component = toCamel(name);
-    Object actual = null;
-    boolean found = false;
-    for (RecordComponent rc : ServiceConfig.class.getRecordComponents()) {
-      if (rc.getName().equals(component) || rc.getName().equals(component.replace("Ms", "Millis"))) {
-        try {
-          actual = rc.getAccessor().invoke(config);
-          found = true;
-        } catch (ReflectiveOperationException e) {
-          throw new AssertionError(e);
-        }
-      }
-    }
-    assertTrue(found, "no config component for setting " + name);
+    Object[] value = new Object[1];
+    assertTrue(find(config, toCamel(name), value), "no config component for setting " + name);
+    Object actual = value[0];
     String text = actual instanceof List<?> list ? String.join(",", list.stream().map(Object::toString).toList())
         : String.valueOf(actual);
     assertEquals(expected, text, name);
+  }
+
+  /** Finds the component named {@code component} in {@code record} or in a record nested in it. */
+  private static boolean find(Record record, String component, Object[] value) {
+    for (RecordComponent rc : record.getClass().getRecordComponents()) {
+      Object v;
+      try {
+        v = rc.getAccessor().invoke(record);
+      } catch (ReflectiveOperationException e) {
+        throw new AssertionError(e);
+      }
+      if (rc.getName().equals(component) || rc.getName().equals(component.replace("Ms", "Millis"))) {
+        value[0] = v;
+        return true;
+      }
+      if (v instanceof Record nested && find(nested, component, value)) {
+        return true;
+      }
+    }
+    return false;
   }
 
   private static String toCamel(String name) {

@@ -12,12 +12,18 @@ import tools.jackson.databind.JsonNode;
  *     {@code as_of} argument when the arguments lack one and the tool takes one; may be null
  * @param run caller's run tag, may be null
  * @param ref caller's ref tag, may be null
+ * @param keyId the id of the API key the call is made under; null for the anonymous key (no keys file)
  */
-public record CallRequest(String tool, OptionalInt version, JsonNode args, String asOf, String run, String ref) {
+public record CallRequest(String tool, OptionalInt version, JsonNode args, String asOf, String run, String ref, String keyId) {
   public CallRequest {
     Objects.requireNonNull(tool, "tool");
     Objects.requireNonNull(version, "version");
     Objects.requireNonNull(args, "args");
+  }
+
+  /** A call under the anonymous key. */
+  public CallRequest(String tool, OptionalInt version, JsonNode args, String asOf, String run, String ref) {
+    this(tool, version, args, asOf, run, ref, null);
   }
 
   public static CallRequest of(String tool, int version, JsonNode args) {

@@ -38,6 +38,21 @@ public final class Invoker {
   private final InvocationIds ids;
   private final AnswerCache cache;
   private final InvocationSink sink;
+  private final Limits limits;
+
+  /**
+   * Bounds every call: characters in one string argument, and the time a call may take (0: none).
+   * A call past either answers {@code limit_exceeded}; a late answer is never cached.
+   */
+  public record Limits(int maxArgumentChars, long deadlineNanos) {
+    public static final Limits NONE = new Limits(Integer.MAX_VALUE, 0);
+
+    public Limits {
+      if (maxArgumentChars < 1 || deadlineNanos < 0) {
+        throw new IllegalArgumentException("limits must be positive: " + maxArgumentChars + ", " + deadlineNanos);
+      }
+    }
+  }
 
   /** An invoker without an answer cache or a ledger. */
   public Invoker(ToolCatalog catalog, Clock clock) {
@@ -55,11 +70,17 @@ public final class Invoker {
 
   /** An invoker whose invocation ids come from {@code ids} (one that continues a ledger). */
   public Invoker(ToolCatalog catalog, Clock clock, InvocationIds ids, AnswerCache cache, InvocationSink sink) {
+    this(catalog, clock, ids, cache, sink, Limits.NONE);
+  }
+
+  /** An invoker with {@code limits} on every call. */
+  public Invoker(ToolCatalog catalog, Clock clock, InvocationIds ids, AnswerCache cache, InvocationSink sink, Limits limits) {
     this.catalog = catalog;
     this.context = new CallContext(clock);
     this.ids = ids;
     this.cache = cache;
     this.sink = sink;
+    this.limits = java.util.Objects.requireNonNull(limits, "limits");
   }
 
   /**
@@ -86,10 +107,13 @@ public final class Invoker {
     return call(new CallRequest(tool, version, textArgs(text), asOf, run, ref));
   }
 
-  /** {@link #callText} with a review of the outcome before it is recorded (see {@link #call(CallRequest, java.util.function.UnaryOperator)}). */
+  /**
+   * {@link #callText} under the API key {@code keyId} (null: anonymous), with a review of the
+   * outcome before it is recorded (see {@link #call(CallRequest, java.util.function.UnaryOperator)}).
+   */
   public Recorded callText(String tool, java.util.OptionalInt version, String text, String asOf, String run, String ref,
-      java.util.function.UnaryOperator<Outcome> review) {
-    return call(new CallRequest(tool, version, textArgs(text), asOf, run, ref), review);
+      String keyId, java.util.function.UnaryOperator<Outcome> review) {
+    return call(new CallRequest(tool, version, textArgs(text), asOf, run, ref, keyId), review);
   }
 
   private static JsonNode textArgs(String text) {
@@ -119,6 +143,11 @@ public final class Invoker {
       return failed(id, Optional.of(toolId), Optional.empty(),
           ToolError.of(ErrorCode.INVALID_ARGUMENT, violation.get()), start);
     }
+    Optional<String> tooLong = overlong(request.args());
+    if (tooLong.isPresent()) {
+      return failed(id, Optional.of(toolId), Optional.empty(), ToolError.of(ErrorCode.LIMIT_EXCEEDED, tooLong.get()), start);
+    }
+    CallContext callContext = limits.deadlineNanos() == 0 ? context : context.withDeadline(start, limits.deadlineNanos());
     Arguments canonical = null;
     try {
       Arguments args = toArguments(request.args());
@@ -135,10 +164,15 @@ public final class Invoker {
       }
       Answer answer;
       try {
-        answer = tool.invoke(canonical, context);
+        answer = tool.invoke(canonical, callContext);
       } catch (ToolException e) {
-        cache.put(key, e.error());
+        if (!callContext.isPastDeadline()) { // a deadline depends on the load, not on the arguments
+          cache.put(key, e.error());
+        }
         throw e;
+      }
+      if (callContext.isPastDeadline()) {
+        throw CallContext.pastDeadline(limits.deadlineNanos());
       }
       Answer clean = new Answer(ResultText.clean(answer.text(), ResultText.DEFAULT_MAX_LENGTH),
           answer.cacheable(), answer.clockReadAt(), answer.dataVersion());
@@ -155,6 +189,18 @@ public final class Invoker {
       return failed(id, Optional.of(toolId), Optional.ofNullable(canonical),
           ToolError.of(ErrorCode.INTERNAL_ERROR, "the tool failed unexpectedly; the failure is logged as " + id), start);
     }
+  }
+
+  /** Why an argument is longer than the limit allows, or empty. */
+  private Optional<String> overlong(JsonNode args) {
+    for (Map.Entry<String, JsonNode> e : args.properties()) {
+      JsonNode v = e.getValue();
+      if (v.isString() && v.stringValue().length() > limits.maxArgumentChars()) {
+        return Optional.of("argument '" + ResultText.clean(e.getKey(), 40) + "' has " + v.stringValue().length()
+            + " characters; the server takes at most " + limits.maxArgumentChars() + " (setting max-argument-chars)");
+      }
+    }
+    return Optional.empty();
   }
 
   private Optional<ToolCatalog.Entry> resolve(CallRequest request) {

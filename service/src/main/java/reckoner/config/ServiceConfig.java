@@ -47,13 +47,61 @@ import java.util.TreeSet;
  * @param retentionDays records older than this many days are deleted (0: kept)
  * @param retentionMaxRecords the oldest records beyond this count are deleted (0: no limit)
  * @param retentionMaxBytes the oldest records are deleted while the ledger's records take more bytes than this (0: no limit)
+ * @param access API keys and their limits
+ * @param bounds the bounds on each request's work
  */
 public record ServiceConfig(String host, int port, Path dataDir, long maxBodyBytes, boolean openAccess,
     long maxBatchBytes, long cacheSize, int callThreads, String markupOpen, String markupSeparator, String markupClose,
     List<Path> factsDirs, boolean factsDemo, String factsDefaultSet, long factsPollMillis,
     String ledger, String ledgerUrl, String ledgerUser, String ledgerPassword, int ledgerPoolSize, boolean ledgerSync,
     String durability, int ledgerQueue, long retentionDays, long retentionMaxRecords,
-    long retentionMaxBytes) {
+    long retentionMaxBytes, Access access, Bounds bounds) {
+
+  /**
+   * API keys: the keys file (null: none, and the server listens on loopback only), how often it is
+   * checked for changes, how many seconds of its rate a key may spend at once, and how many NDJSON
+   * streams a key may have open.
+   */
+  public record Access(Path keysFile, long keysPollMillis, double rateBurstSeconds, int maxStreamsPerKey) {
+    public Access {
+      if (keysPollMillis < 0) {
+        throw new ConfigException("keys-poll-ms must not be negative but was " + keysPollMillis);
+      }
+      if (!(rateBurstSeconds > 0) || rateBurstSeconds > 3600) {
+        throw new ConfigException("rate-burst-seconds must be above 0 and at most 3600 but was " + rateBurstSeconds);
+      }
+      if (maxStreamsPerKey < 1 || maxStreamsPerKey > 1000) {
+        throw new ConfigException("max-streams-per-key must be between 1 and 1000 but was " + maxStreamsPerKey);
+      }
+    }
+  }
+
+  /**
+   * Bounds on each request's work, beyond the body sizes: calls in a JSON batch, characters in one
+   * string argument, the time one call may take, how long a connection may stay silent, and the
+   * size of a request's headers.
+   */
+  public record Bounds(int maxBatchCalls, int maxArgumentChars, long callDeadlineMillis, long httpIdleTimeoutMillis,
+      int maxHeaderBytes) {
+    public Bounds {
+      if (maxBatchCalls < 1 || maxBatchCalls > 1_000_000) {
+        throw new ConfigException("max-batch-calls must be between 1 and 1000000 but was " + maxBatchCalls);
+      }
+      if (maxArgumentChars < 100 || maxArgumentChars > 10_000_000) {
+        throw new ConfigException("max-argument-chars must be between 100 and 10000000 but was " + maxArgumentChars);
+      }
+      if (callDeadlineMillis < 1 || callDeadlineMillis > 600_000) {
+        throw new ConfigException("call-deadline-ms must be between 1 and 600000 but was " + callDeadlineMillis);
+      }
+      if (httpIdleTimeoutMillis < 100 || httpIdleTimeoutMillis > 3_600_000) {
+        throw new ConfigException("http-idle-timeout-ms must be between 100 and 3600000 but was " + httpIdleTimeoutMillis);
+      }
+      if (maxHeaderBytes < 1024 || maxHeaderBytes > 1 << 20) {
+        throw new ConfigException("max-header-bytes must be between 1024 and 1048576 but was " + maxHeaderBytes);
+      }
+    }
+  }
+
 
   public ServiceConfig {
     if (port < 0 || port > 65535) {
@@ -88,8 +136,10 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
       throw new ConfigException("ledger-pool-size and ledger-queue must be positive, retention-days, "
           + "retention-max-records and retention-max-bytes not negative");
     }
-    if (!openAccess && !isLoopback(host)) {
-      throw new ConfigException("refusing to listen on " + host + " without API keys: use a loopback host "
+    java.util.Objects.requireNonNull(access, "access");
+    java.util.Objects.requireNonNull(bounds, "bounds");
+    if (!openAccess && access.keysFile() == null && !isLoopback(host)) {
+      throw new ConfigException("refusing to listen on " + host + " without API keys: give a keys-file, use a loopback host "
           + "(127.0.0.1), or set open-access=true to serve every caller who can reach it");
     }
   }
@@ -132,7 +182,16 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
       new Setting("retention-days", "0", false, "Delete records older than this many days (0: keep)."),
       new Setting("retention-max-records", "0", false, "Delete the oldest records beyond this count (0: keep)."),
       new Setting("retention-max-bytes", "0", false,
-          "Delete the oldest records while the rest take more than this (500MB, 2GiB; 0: keep)."));
+          "Delete the oldest records while the rest take more than this (500MB, 2GiB; 0: keep)."),
+      new Setting("keys-file", "", true, "The API keys (JSON Lines; see Access). None: no keys, and loopback only."),
+      new Setting("keys-poll-ms", "2000", true, "How often the keys file is checked for changes; 0: read at start only."),
+      new Setting("rate-burst-seconds", "1", true, "How many seconds of its rate_per_s a key may spend at once."),
+      new Setting("max-streams-per-key", "4", true, "NDJSON batch streams one key may have open at once."),
+      new Setting("max-batch-calls", "10000", true, "Calls in one JSON batch at most (stream more as NDJSON)."),
+      new Setting("max-argument-chars", "10000", false, "Characters in one string argument at most (longer: 422 limit_exceeded)."),
+      new Setting("call-deadline-ms", "1000", false, "Time one call may take; past it the call answers 422 limit_exceeded."),
+      new Setting("http-idle-timeout-ms", "30000", true, "A connection silent this long is closed (slow or stalled clients)."),
+      new Setting("max-header-bytes", "8192", true, "Largest request line and headers; larger get 431."));
 
   /** Every setting with its default. */
   public static final Map<String, String> DEFAULTS = defaults();
@@ -178,7 +237,11 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
         integer(s, "ledger-queue"),
         longValue(s, "retention-days"),
         longValue(s, "retention-max-records"),
-        byteSize(s, "retention-max-bytes"));
+        byteSize(s, "retention-max-bytes"),
+        new Access(s.get("keys-file").isBlank() ? null : Path.of(s.get("keys-file").trim()), longValue(s, "keys-poll-ms"),
+            decimal(s, "rate-burst-seconds"), integer(s, "max-streams-per-key")),
+        new Bounds(integer(s, "max-batch-calls"), integer(s, "max-argument-chars"), longValue(s, "call-deadline-ms"),
+            longValue(s, "http-idle-timeout-ms"), integer(s, "max-header-bytes")));
   }
 
   /**
@@ -233,6 +296,18 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
       return Integer.parseInt(s.get(name).trim());
     } catch (NumberFormatException e) {
       throw new ConfigException(name + " must be a whole number but was '" + s.get(name) + "'");
+    }
+  }
+
+  private static double decimal(Map<String, String> s, String name) {
+    try {
+      double d = Double.parseDouble(s.get(name).trim());
+      if (Double.isNaN(d) || Double.isInfinite(d)) {
+        throw new NumberFormatException();
+      }
+      return d;
+    } catch (NumberFormatException e) {
+      throw new ConfigException(name + " must be a number but was '" + s.get(name) + "'");
     }
   }
 

@@ -35,7 +35,6 @@ import tools.jackson.databind.node.ObjectNode;
  * answered as soon as it and every line before it are done. One bad call fails only itself.
  */
 final class BatchRoutes {
-  static final int MAX_JSON_CALLS = 10_000;
   /**
    * Calls in flight in one NDJSON stream, computed or waiting for their records' commit. In commit
    * mode this bounds the ledger's group commits from one stream (a line is answered only after its
@@ -53,13 +52,18 @@ final class BatchRoutes {
   private final CallMetrics metrics;
   private final Bodies bodies;
   private final ExecutorService executor;
+  private final Access access;
+  private final int maxJsonCalls;
 
-  BatchRoutes(Invoker invoker, Responses responses, CallMetrics metrics, Bodies batchBodies, ExecutorService executor) {
+  BatchRoutes(Invoker invoker, Responses responses, CallMetrics metrics, Bodies batchBodies, ExecutorService executor,
+      Access access, int maxJsonCalls) {
     this.invoker = invoker;
     this.responses = responses;
     this.metrics = metrics;
     this.bodies = batchBodies;
     this.executor = executor;
+    this.access = access;
+    this.maxJsonCalls = maxJsonCalls;
   }
 
   void batch(Context ctx) throws Exception {
@@ -67,17 +71,23 @@ final class BatchRoutes {
     MediaTypes.requireUtf8(ctx.contentType());
     String run = ToolRoutes.tag(ctx, ToolRoutes.RUN_HEADER);
     String asOf = ToolRoutes.tag(ctx, ToolRoutes.AS_OF_HEADER);
+    Caller caller = Access.caller(ctx);
     if (type.equals(MediaTypes.NDJSON) || type.equals("application/jsonl") || type.equals("application/jsonlines")) {
-      ndjson(ctx, run, asOf);
+      try (AutoCloseable slot = access.openStream(caller)) {
+        ndjson(ctx, new Tags(run, asOf, caller));
+      }
     } else if (type.equals(MediaTypes.JSON)) {
-      json(ctx, run, asOf);
+      json(ctx, new Tags(run, asOf, caller));
     } else {
       throw new ApiException(ErrorCode.UNSUPPORTED_MEDIA_TYPE, "send application/json ({\"calls\":[...]}) or application/x-ndjson (one call a line), not "
           + (type.isEmpty() ? "no Content-Type" : MediaTypes.clip(type)));
     }
   }
 
-  private void json(Context ctx, String run, String asOf) throws InterruptedException, ExecutionException {
+  /** What every call of one batch travels with: the header tags and the caller. */
+  private record Tags(String run, String asOf, Caller caller) {}
+
+  private void json(Context ctx, Tags tags) throws InterruptedException, ExecutionException {
     JsonNode body;
     try {
       body = responses.json().readTree(bodies.read(ctx));
@@ -88,13 +98,14 @@ final class BatchRoutes {
     if (body == null || !body.isObject() || calls == null || !calls.isArray() || body.size() != 1) {
       throw new ApiException(ErrorCode.INVALID_ARGUMENT, "the body must be {\"calls\":[...]}, an object with one array");
     }
-    if (calls.size() > MAX_JSON_CALLS) {
-      throw new ApiException(ErrorCode.LIMIT_EXCEEDED, "a JSON batch holds at most " + MAX_JSON_CALLS + " calls but had "
+    if (calls.size() > maxJsonCalls) {
+      throw new ApiException(ErrorCode.LIMIT_EXCEEDED, "a JSON batch holds at most " + maxJsonCalls + " calls but had "
           + calls.size() + "; stream larger batches as application/x-ndjson");
     }
+    access.takeOrRefuse(tags.caller(), calls.size()); // a batch line counts as a call
     List<Future<Pending>> results = new ArrayList<>(calls.size());
     for (JsonNode item : calls) {
-      results.add(executor.submit(() -> runItem(item, run, asOf, 0)));
+      results.add(executor.submit(() -> runItem(item, tags, 0)));
     }
     ObjectNode out = responses.object();
     ArrayNode array = out.putArray("results");
@@ -104,7 +115,12 @@ final class BatchRoutes {
     responses.json(ctx, 200, out);
   }
 
-  private void ndjson(Context ctx, String run, String asOf) throws IOException, InterruptedException {
+  /**
+   * A stream over its key's rate slows down rather than failing lines: each chunk waits for its
+   * calls' share of the rate before it runs, so the stream reads no further and TCP pushes back on
+   * the sender. Other keys' calls never wait for it.
+   */
+  private void ndjson(Context ctx, Tags tags) throws IOException, InterruptedException {
     ctx.status(200).contentType(MediaTypes.NDJSON);
     // The servlet's own stream, not Javalin's compressing one: that one holds small writes back
     // until it has enough to decide on compression, and ignores flush(), so a caller waiting for
@@ -123,13 +139,15 @@ final class BatchRoutes {
         }
         if (chunk.size() == CHUNK || (!chunk.isEmpty() && !lines.hasBuffered())) {
           List<LineReader.Line> lineChunk = chunk;
-          window.put(executor.submit(() -> runLines(lineChunk, run, asOf)));
+          access.take(tags.caller(), lineChunk.size());
+          window.put(executor.submit(() -> runLines(lineChunk, tags)));
           chunk = new ArrayList<>(CHUNK);
         }
       }
       if (!chunk.isEmpty()) {
         List<LineReader.Line> lineChunk = chunk;
-        window.put(executor.submit(() -> runLines(lineChunk, run, asOf)));
+        access.take(tags.caller(), lineChunk.size());
+        window.put(executor.submit(() -> runLines(lineChunk, tags)));
       }
     } finally {
       window.put(end);
@@ -137,10 +155,10 @@ final class BatchRoutes {
     }
   }
 
-  private List<Pending> runLines(List<LineReader.Line> lines, String run, String asOf) {
+  private List<Pending> runLines(List<LineReader.Line> lines, Tags tags) {
     List<Pending> results = new ArrayList<>(lines.size());
     for (LineReader.Line line : lines) {
-      results.add(runLine(line, run, asOf).serialized());
+      results.add(runLine(line, tags).serialized());
     }
     return results;
   }
@@ -237,7 +255,7 @@ final class BatchRoutes {
     }
   }
 
-  private Pending runLine(LineReader.Line line, String run, String asOf) {
+  private Pending runLine(LineReader.Line line, Tags tags) {
     if (line.tooLong()) {
       return new Pending(ResultJson.refused(responses.object(), null, ToolError.of(ErrorCode.PAYLOAD_TOO_LARGE,
           "line " + line.number() + " is longer than " + bodies.limit() + " bytes"), line.number()), null, null);
@@ -249,13 +267,13 @@ final class BatchRoutes {
       return new Pending(ResultJson.refused(responses.object(), null, ToolError.of(ErrorCode.INVALID_ARGUMENT,
           "line " + line.number() + " is not valid JSON: " + Bodies.describe(e)), line.number()), null, null);
     }
-    return runItem(item, run, asOf, line.number());
+    return runItem(item, tags, line.number());
   }
 
-  private Pending runItem(JsonNode item, String run, String asOf, long lineNumber) {
+  private Pending runItem(JsonNode item, Tags tags, long lineNumber) {
     JsonNode id = item != null && item.isObject() ? item.get("id") : null;
     try {
-      CallRequest request = request(item, run, asOf);
+      CallRequest request = request(item, tags);
       Recorded recorded = invoker.call(request);
       metrics.record(recorded.outcome());
       return new Pending(ResultJson.outcome(responses.object(), id, recorded.outcome()), id, recorded.durable());
@@ -264,7 +282,7 @@ final class BatchRoutes {
     }
   }
 
-  private static CallRequest request(JsonNode item, String run, String asOf) {
+  private static CallRequest request(JsonNode item, Tags tags) {
     if (item == null || !item.isObject()) {
       throw new ApiException(ErrorCode.INVALID_ARGUMENT, "a call must be an object {\"id\",\"tool\",\"version\",\"args\",\"ref\"}");
     }
@@ -295,7 +313,8 @@ final class BatchRoutes {
     }
     String ref = tagField(item, "ref");
     String itemRun = tagField(item, "run");
-    return new CallRequest(tool.stringValue(), version, args, asOf, itemRun != null ? itemRun : run, ref);
+    return new CallRequest(tool.stringValue(), version, args, tags.asOf(), itemRun != null ? itemRun : tags.run(), ref,
+        tags.caller().keyIdOrNull());
   }
 
   private static String tagField(JsonNode item, String field) {

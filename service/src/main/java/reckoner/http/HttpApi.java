@@ -4,13 +4,19 @@ import io.javalin.Javalin;
 import io.javalin.http.Context;
 import io.javalin.http.HttpResponseException;
 import io.micrometer.prometheusmetrics.PrometheusMeterRegistry;
+import io.javalin.http.Handler;
 import java.util.Arrays;
+import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.ExecutorService;
 import java.util.function.BooleanSupplier;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
+import reckoner.access.KeyStore;
+import reckoner.access.RateLimits;
+import reckoner.access.StreamLimits;
 import reckoner.call.Invoker;
+import reckoner.config.ServiceConfig;
 import reckoner.facts.FactStore;
 import reckoner.ledger.LedgerStore;
 import reckoner.splice.Filler;
@@ -27,49 +33,83 @@ import tools.jackson.databind.node.ObjectNode;
 public final class HttpApi {
   private static final Logger LOG = LoggerFactory.getLogger(HttpApi.class);
 
-  /** What the routes need, made by {@code Main}. */
+  /** What the routes need, made by {@code Service}. */
   public record Settings(long maxBodyBytes, long maxBatchBytes, Markup markup, ObjectNode openApi, BooleanSupplier ready,
-      ExecutorService callExecutor, FactStore facts, LedgerStore ledger) {}
+      ExecutorService callExecutor, FactStore facts, LedgerStore ledger, KeyStore keys, RateLimits rates,
+      StreamLimits streams, ServiceConfig.Bounds bounds) {}
+
+  /** One route: method, path, what it needs of its caller, and its handler. */
+  record Route(String method, String path, Need need, Handler handler) {}
+
+  /** A route as the outside sees it: method, path, and the scope it needs ({@code open} for none). */
+  public record RouteInfo(String method, String path, String scope) {}
+
+  /** The server, not yet started, and the routes it serves. */
+  public record Built(Javalin app, List<RouteInfo> routes) {}
 
   private HttpApi() {}
 
-  public static Javalin create(Invoker invoker, PrometheusMeterRegistry metrics, JsonMapper json, Settings settings) {
+  public static Built create(Invoker invoker, PrometheusMeterRegistry metrics, JsonMapper json, Settings settings) {
     Responses responses = new Responses(json);
+    Access access = new Access(settings.keys(), settings.rates(), settings.streams());
     Bodies bodies = new Bodies(settings.maxBodyBytes());
     CallMetrics callMetrics = new CallMetrics(metrics);
-    ToolRoutes tools = new ToolRoutes(invoker, responses, callMetrics, bodies);
+    ToolRoutes tools = new ToolRoutes(invoker, responses, callMetrics, bodies, access);
     BatchRoutes batch = new BatchRoutes(invoker, responses, callMetrics, new Bodies(settings.maxBatchBytes()),
-        settings.callExecutor());
+        settings.callExecutor(), access, settings.bounds().maxBatchCalls());
     FactsRoutes facts = new FactsRoutes(settings.facts(), responses);
+    KeysRoutes keys = new KeysRoutes(settings.keys(), responses);
     LedgerRoutes ledger = new LedgerRoutes(settings.ledger(), responses);
     StatusPage status = new StatusPage(callMetrics, responses, java.time.Clock.systemUTC());
     SpliceRoutes splice = new SpliceRoutes(new Filler(invoker), responses, callMetrics, new Bodies(settings.maxBatchBytes()),
-        settings.markup());
-    byte[] openApi = json.writeValueAsBytes(settings.openApi());
+        settings.markup(), access);
+    java.util.concurrent.atomic.AtomicReference<byte[]> openApi = new java.util.concurrent.atomic.AtomicReference<>();
+    // Every route, with what it needs of its caller: the one table the server, its OpenAPI document
+    // and the access tests read.
+    List<Route> routes = List.of(
+        new Route("GET", "/v1/tools", Need.OPEN, tools::list),
+        new Route("GET", "/v1/tools/{name}/{version}", Need.OPEN, tools::describe),
+        new Route("POST", "/v1/tools/{name}/{version}/invoke", Need.INVOKE, tools::invoke),
+        new Route("POST", "/v1/batch", Need.INVOKE, batch::batch),
+        new Route("POST", "/v1/splice", Need.INVOKE, splice::splice),
+        new Route("POST", "/v1/fill", Need.INVOKE, splice::fill),
+        new Route("GET", "/v1/invocations", Need.LEDGER_READ, ledger::query),
+        new Route("GET", "/v1/invocations/export", Need.LEDGER_READ, ledger::export),
+        new Route("GET", "/v1/admin/facts", Need.ADMIN, facts::show),
+        new Route("POST", "/v1/admin/facts/reload", Need.ADMIN, facts::reload),
+        new Route("GET", "/v1/admin/keys", Need.ADMIN, keys::show),
+        new Route("POST", "/v1/admin/keys/reload", Need.ADMIN, keys::reload),
+        new Route("GET", "/status", Need.ADMIN, status::show),
+        new Route("GET", "/openapi.json", Need.OPEN, ctx -> ctx.contentType(MediaTypes.JSON).result(openApi.get())),
+        new Route("GET", "/health/live", Need.OPEN, ctx -> responses.json(ctx, 200, responses.object().put("status", "up"))),
+        new Route("GET", "/health/ready", Need.OPEN, ctx -> ready(ctx, responses, settings.ready())),
+        new Route("GET", "/metrics", Need.OPEN,
+            ctx -> ctx.contentType("text/plain; version=0.0.4; charset=utf-8").result(metrics.scrape())),
+        new Route("GET", "/problems/{code}", Need.OPEN, ctx -> problemType(ctx, responses)));
 
-    return Javalin.create(config -> {
+    Javalin app = Javalin.create(config -> {
       config.startup.showJavalinBanner = false;
       config.events.serverStopped(status::stop);
       config.http.maxRequestSize = Math.max(settings.maxBodyBytes(), settings.maxBatchBytes());
       config.http.prefer405over404 = true;
       config.router.ignoreTrailingSlashes = true;
+      config.jetty.modifyHttpConfiguration(http -> http.setRequestHeaderSize(settings.bounds().maxHeaderBytes()));
+      config.jetty.modifyServer(server -> {
+        for (org.eclipse.jetty.server.Connector c : server.getConnectors()) {
+          if (c instanceof org.eclipse.jetty.server.AbstractConnector connector) {
+            connector.setIdleTimeout(settings.bounds().httpIdleTimeoutMillis());
+          }
+        }
+      });
 
-      config.routes.get("/v1/tools", tools::list);
-      config.routes.get("/v1/tools/{name}/{version}", tools::describe);
-      config.routes.post("/v1/tools/{name}/{version}/invoke", tools::invoke);
-      config.routes.post("/v1/batch", batch::batch);
-      config.routes.post("/v1/splice", splice::splice);
-      config.routes.post("/v1/fill", splice::fill);
-      config.routes.get("/openapi.json", ctx -> ctx.contentType(MediaTypes.JSON).result(openApi));
-      config.routes.get("/health/live", ctx -> responses.json(ctx, 200, responses.object().put("status", "up")));
-      config.routes.get("/health/ready", ctx -> ready(ctx, responses, settings.ready()));
-      config.routes.get("/metrics", ctx -> ctx.contentType("text/plain; version=0.0.4; charset=utf-8").result(metrics.scrape()));
-      config.routes.get("/v1/invocations", ledger::query);
-      config.routes.get("/v1/invocations/export", ledger::export);
-      config.routes.get("/status", status::show);
-      config.routes.get("/v1/admin/facts", facts::show);
-      config.routes.post("/v1/admin/facts/reload", facts::reload);
-      config.routes.get("/problems/{code}", ctx -> problemType(ctx, responses));
+      config.routes.beforeMatched(access::check);
+      for (Route r : routes) {
+        switch (r.method()) {
+          case "GET" -> config.routes.get(r.path(), r.handler(), r.need());
+          case "POST" -> config.routes.post(r.path(), r.handler(), r.need());
+          default -> throw new IllegalStateException("no such method in the route table: " + r.method());
+        }
+      }
 
       config.routes.exception(ApiException.class, (e, ctx) -> responses.problem(ctx, e.error(), e.headers()));
       config.routes.exception(HttpResponseException.class, (e, ctx) -> httpProblem(ctx, responses, e.getStatus(), e.getMessage()));
@@ -85,6 +125,12 @@ public final class HttpApi {
         }
       });
     });
+    List<RouteInfo> infos = routes.stream().map(r -> new RouteInfo(r.method(), r.path(),
+        r.need().scope().map(reckoner.access.Scope::wireName).orElse("open"))).toList();
+    ObjectNode document = settings.openApi().deepCopy();
+    OpenApiSecurity.document(document, infos, settings.keys() != null);
+    openApi.set(json.writeValueAsBytes(document));
+    return new Built(app, infos);
   }
 
   private static void ready(Context ctx, Responses responses, BooleanSupplier ready) {

@@ -27,7 +27,7 @@ final class LedgerRoutes {
   }
 
   void query(Context ctx) {
-    InvocationQuery query = parse(ctx);
+    InvocationQuery query = parse(ctx, Access.caller(ctx));
     if (query.limit() != null && query.limit() > InvocationQuery.MAX_PAGE_SIZE) {
       throw new ApiException(reckoner.tool.ErrorCode.INVALID_ARGUMENT, "limit must be at most " + InvocationQuery.MAX_PAGE_SIZE
           + " records a page but was " + query.limit() + "; follow \"next\" for more, or read every match from /v1/invocations/export");
@@ -37,16 +37,34 @@ final class LedgerRoutes {
   }
 
   void export(Context ctx) throws Exception {
-    InvocationQuery query = parse(ctx); // refuse bad filters before the 200 is sent
+    InvocationQuery query = parse(ctx, Access.caller(ctx)); // refuse bad filters before the 200 is sent
     ctx.status(200).contentType(MediaTypes.NDJSON);
     try (Writer out = new BufferedWriter(new OutputStreamWriter(ctx.outputStream(), StandardCharsets.UTF_8), 1 << 16)) {
       store.exportNdjson(query, out);
     }
   }
 
-  private static InvocationQuery parse(Context ctx) {
+  /**
+   * The caller's query: its own key's records, or, for an admin key, every key's, narrowed by the
+   * parameter {@code key} when given. A key without admin may name only itself.
+   */
+  private static InvocationQuery parse(Context ctx, Caller caller) {
+    java.util.Map<String, java.util.List<String>> params = new java.util.LinkedHashMap<>(ctx.queryParamMap());
+    java.util.List<String> key = params.remove("key");
+    if (key != null && (key.size() != 1 || key.get(0).isEmpty())) {
+      throw new ApiException(reckoner.tool.ErrorCode.INVALID_ARGUMENT, "query parameter 'key' must be given once, a key id");
+    }
+    InvocationQuery.Scope scope;
+    if (caller.readsAllRecords()) {
+      scope = key == null ? InvocationQuery.Scope.all() : InvocationQuery.Scope.key(key.get(0));
+    } else if (key == null || key.get(0).equals(caller.keyId())) {
+      scope = InvocationQuery.Scope.key(caller.keyId());
+    } else {
+      throw new ApiException(reckoner.tool.ErrorCode.FORBIDDEN, "key '" + caller.keyId()
+          + "' reads only its own records; reading another key's needs the admin scope");
+    }
     try {
-      return InvocationQuery.fromParameters(InvocationQuery.Scope.key(LedgerSink.ANONYMOUS), ctx.queryParamMap());
+      return InvocationQuery.fromParameters(scope, params);
     } catch (ToolException e) {
       throw new ApiException(e.error().code(), e.error().detail());
     }

@@ -20,22 +20,26 @@ final class SpliceRoutes {
   private final CallMetrics metrics;
   private final Bodies bodies;
   private final Markup serverMarkup;
+  private final Access access;
 
-  SpliceRoutes(Filler filler, Responses responses, CallMetrics metrics, Bodies bodies, Markup serverMarkup) {
+  SpliceRoutes(Filler filler, Responses responses, CallMetrics metrics, Bodies bodies, Markup serverMarkup, Access access) {
     this.filler = filler;
     this.responses = responses;
     this.metrics = metrics;
     this.bodies = bodies;
     this.serverMarkup = serverMarkup;
+    this.access = access;
   }
 
   /** Body: {@code {"call":"arith(1250/4000)","markup":{...}}}, or the call itself as text/plain. */
   void splice(Context ctx) {
     boolean asText = MediaTypes.wantsText(ctx.header("Accept"));
     Request r = read(ctx, "call");
+    Filler.Tags tags = tags(ctx);
+    access.takeOrRefuse(Access.caller(ctx), 1);
     Filler.Spliced s;
     try {
-      s = filler.splice(r.text, r.markup, tags(ctx));
+      s = filler.splice(r.text, r.markup, tags);
     } catch (ToolException e) {
       responses.problem(ctx, e.error(), asText, null);
       return;
@@ -75,7 +79,9 @@ final class SpliceRoutes {
   void fill(Context ctx) {
     boolean asText = MediaTypes.wantsText(ctx.header("Accept"));
     Request r = read(ctx, "document");
-    Filler.Filled filled = filler.fill(r.text, r.markup, r.onError, tags(ctx));
+    Filler.Tags tags = tags(ctx);
+    access.takeOrRefuse(Access.caller(ctx), Math.max(1, Filler.countCalls(r.text, r.markup))); // each call counts
+    Filler.Filled filled = filler.fill(r.text, r.markup, r.onError, tags);
     filled.calls().forEach(c -> metrics.record(c.outcome()));
     Durable.await(filled.durable()); // a fill is acknowledged whole, or not at all
     if (asText) {
@@ -153,6 +159,6 @@ final class SpliceRoutes {
 
   private static Filler.Tags tags(Context ctx) {
     return new Filler.Tags(ToolRoutes.tag(ctx, ToolRoutes.RUN_HEADER), ToolRoutes.tag(ctx, ToolRoutes.REF_HEADER),
-        ToolRoutes.tag(ctx, ToolRoutes.AS_OF_HEADER));
+        ToolRoutes.tag(ctx, ToolRoutes.AS_OF_HEADER), Access.caller(ctx).keyIdOrNull());
   }
 }

@@ -29,12 +29,14 @@ final class ToolRoutes {
   private final Responses responses;
   private final CallMetrics metrics;
   private final Bodies bodies;
+  private final Access access;
 
-  ToolRoutes(Invoker invoker, Responses responses, CallMetrics metrics, Bodies bodies) {
+  ToolRoutes(Invoker invoker, Responses responses, CallMetrics metrics, Bodies bodies, Access access) {
     this.invoker = invoker;
     this.responses = responses;
     this.metrics = metrics;
     this.bodies = bodies;
+    this.access = access;
   }
 
   void list(Context ctx) {
@@ -73,8 +75,10 @@ final class ToolRoutes {
       return;
     }
     JsonNode args = readArguments(ctx);
+    Caller caller = Access.caller(ctx);
     CallRequest request = new CallRequest(id.name(), OptionalInt.of(id.version()), args,
-        tag(ctx, AS_OF_HEADER), tag(ctx, RUN_HEADER), tag(ctx, REF_HEADER));
+        tag(ctx, AS_OF_HEADER), tag(ctx, RUN_HEADER), tag(ctx, REF_HEADER), caller.keyIdOrNull());
+    access.takeOrRefuse(caller, 1);
     Recorded recorded = invoker.call(request);
     Outcome outcome = recorded.outcome();
     metrics.record(outcome);

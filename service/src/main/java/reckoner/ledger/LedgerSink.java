@@ -30,7 +30,7 @@ public final class LedgerSink implements InvocationSink {
     }
   }
 
-  /** The key every call is recorded under until API keys exist. */
+  /** The key every call is recorded under when the server has no keys file. */
   public static final String ANONYMOUS = "anonymous";
 
   private static final CompletableFuture<Void> DONE = CompletableFuture.completedFuture(null);
@@ -44,7 +44,8 @@ public final class LedgerSink implements InvocationSink {
 
   @Override
   public CompletableFuture<Void> record(CallRequest request, Outcome outcome) {
-    Invocation invocation = Invocation.of(request, outcome, ANONYMOUS, outcome.cached());
+    Invocation invocation = Invocation.of(request, outcome, request.keyId() == null ? ANONYMOUS : request.keyId(),
+        outcome.cached());
     if (durability == Durability.COMMIT) {
       return writer.append(invocation);
     }

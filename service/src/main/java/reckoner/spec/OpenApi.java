@@ -90,6 +90,14 @@ public final class OpenApi {
         "Read every fact file again; swap atomically only if all are sound (422 data_error otherwise)", "application/json", null);
     problems(reload, "422");
     paths.putObject("/v1/admin/facts/reload").set("post", reload);
+    paths.putObject("/v1/admin/keys").set("get", plain(json, "apiKeys",
+        "The API keys in force: ids, scopes and rates (never their digests), and why the last reload was refused, if it was",
+        "application/json", null));
+    ObjectNode keysReload = plain(json, "reloadKeys",
+        "Read the keys file again; swap only if it is sound (422 data_error otherwise, the old keys staying in force)",
+        "application/json", null);
+    problems(keysReload, "400", "422");
+    paths.putObject("/v1/admin/keys/reload").set("post", keysReload);
     paths.putObject("/status").set("get", plain(json, "status", "A live page for ops: rates, errors, latency per tool",
         "text/html", null));
     paths.putObject("/openapi.json").set("get", plain(json, "openApi", "This document", "application/json", null));
@@ -213,6 +221,7 @@ public final class OpenApi {
     query(params, "until", "string", "Only records before this ISO 8601 instant");
     query(params, "limit", "integer", "At most this many records (a page: 1 to 1000, default 100)");
     query(params, "after", "string", "The cursor: records after this id (a page's next)");
+    query(params, "key", "string", "Only this key's records (an admin key only; other keys read only their own)");
   }
 
   private static void query(ArrayNode params, String name, String type, String description) {

@@ -36,16 +36,23 @@ public final class Filler {
 
   public Filler(Invoker invoker) {
     this((call, tags, position, review) -> invoker.callText(call.tool(), call.version(), call.input(), tags.asOf(),
-        tags.run(), tags.refAt(position), review));
+        tags.run(), tags.refAt(position), tags.keyId(), review));
   }
 
   Filler(Caller caller) {
     this.caller = Objects.requireNonNull(caller, "caller");
   }
 
-  /** The tags a fill's calls travel with; any may be null. {@code ref} is a prefix: each call adds its position. */
-  public record Tags(String run, String ref, String asOf) {
-    public static final Tags NONE = new Tags(null, null, null);
+  /**
+   * The tags a fill's calls travel with, and the API key they are made under; any may be null.
+   * {@code ref} is a prefix: each call adds its position.
+   */
+  public record Tags(String run, String ref, String asOf, String keyId) {
+    public static final Tags NONE = new Tags(null, null, null, null);
+
+    public Tags(String run, String ref, String asOf) {
+      this(run, ref, asOf, null);
+    }
 
     String refAt(int position) {
       return (ref == null ? "" : ref + ":") + "pos-" + position;
@@ -95,6 +102,17 @@ public final class Filler {
     }
     CallText call = CallText.parse(body);
     return answer(0, call, markup.open() + call + markup.close(), "", markup, tags);
+  }
+
+  /** How many calls of {@code document} a fill would answer (its unanswered, well-formed calls). */
+  public static int countCalls(String document, Markup markup) {
+    int n = 0;
+    for (Document.Part part : Document.parse(document, markup).parts()) {
+      if (part.error().isEmpty() && part.isUnanswered()) {
+        n++;
+      }
+    }
+    return n;
   }
 
   /** Answers every unanswered call of {@code document}; answered calls and literal text stay as they are. */
