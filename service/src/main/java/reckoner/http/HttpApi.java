@@ -87,6 +87,7 @@ public final class HttpApi {
             ctx -> ctx.contentType("text/plain; version=0.0.4; charset=utf-8").result(metrics.scrape())),
         new Route("GET", "/problems/{code}", Need.OPEN, ctx -> problemType(ctx, responses)));
 
+    java.util.concurrent.atomic.AtomicReference<Javalin> started = new java.util.concurrent.atomic.AtomicReference<>();
     Javalin app = Javalin.create(config -> {
       config.startup.showJavalinBanner = false;
       config.events.serverStopped(status::stop);
@@ -94,13 +95,8 @@ public final class HttpApi {
       config.http.prefer405over404 = true;
       config.router.ignoreTrailingSlashes = true;
       config.jetty.modifyHttpConfiguration(http -> http.setRequestHeaderSize(settings.bounds().maxHeaderBytes()));
-      config.jetty.modifyServer(server -> {
-        for (org.eclipse.jetty.server.Connector c : server.getConnectors()) {
-          if (c instanceof org.eclipse.jetty.server.AbstractConnector connector) {
-            connector.setIdleTimeout(settings.bounds().httpIdleTimeoutMillis());
-          }
-        }
-      });
+      config.jetty.modifyServer(server -> server.setErrorHandler(new JettyErrors(responses)));
+      config.events.serverStarted(() -> idleTimeout(started.get(), settings.bounds().httpIdleTimeoutMillis()));
 
       config.routes.beforeMatched(access::check);
       for (Route r : routes) {
@@ -127,10 +123,20 @@ public final class HttpApi {
     });
     List<RouteInfo> infos = routes.stream().map(r -> new RouteInfo(r.method(), r.path(),
         r.need().scope().map(reckoner.access.Scope::wireName).orElse("open"))).toList();
+    started.set(app);
     ObjectNode document = settings.openApi().deepCopy();
     OpenApiSecurity.document(document, infos, settings.keys() != null);
     openApi.set(json.writeValueAsBytes(document));
     return new Built(app, infos);
+  }
+
+  /** Closes connections that stay silent this long (slow or stalled clients); set once the connectors exist. */
+  private static void idleTimeout(Javalin app, long millis) {
+    for (org.eclipse.jetty.server.Connector c : app.jettyServer().server().getConnectors()) {
+      if (c instanceof org.eclipse.jetty.server.AbstractConnector connector) {
+        connector.setIdleTimeout(millis);
+      }
+    }
   }
 
   private static void ready(Context ctx, Responses responses, BooleanSupplier ready) {

@@ -21,6 +21,7 @@ final class Problem {
       case NOT_ACCEPTABLE -> 406;
       case PAYLOAD_TOO_LARGE -> 413;
       case UNSUPPORTED_MEDIA_TYPE -> 415;
+      case HEADER_TOO_LARGE -> 431;
       case RATE_LIMITED -> 429;
       case UNAVAILABLE -> 503;
       case INTERNAL_ERROR -> 500;
@@ -42,6 +43,7 @@ final class Problem {
       case NOT_ACCEPTABLE -> "Not acceptable";
       case PAYLOAD_TOO_LARGE -> "Payload too large";
       case UNSUPPORTED_MEDIA_TYPE -> "Unsupported media type";
+      case HEADER_TOO_LARGE -> "Request header fields too large";
       case RATE_LIMITED -> "Rate limited";
       case UNAVAILABLE -> "Unavailable";
       case INTERNAL_ERROR -> "Internal error";

@@ -19,6 +19,8 @@ public enum ErrorCode {
   UNKNOWN_ENDPOINT,
   METHOD_NOT_ALLOWED,
   UNSUPPORTED_MEDIA_TYPE,
+  /** The request line and headers are larger than the server reads (431). */
+  HEADER_TOO_LARGE,
   NOT_ACCEPTABLE,
   /** A defect on our side; never caused by input alone. Shows no internals. */
   INTERNAL_ERROR,
