@@ -243,7 +243,6 @@ add("last friday of this month", R + relativedelta(day=31, weekday=FR(-1)), RD)
 add("first Monday of next month", R + relativedelta(months=1, day=1, weekday=MO(+1)), RD)
 add("the fifth Saturday of June 2024", date(2024, 6, 1) + relativedelta(weekday=SA(+5)), RD)
 add("second Sunday of 2024-05", date(2024, 5, 1) + relativedelta(weekday=SU(+2)), RD)
-refuse("fifth Monday of February 2024", "invalid_date", "dateutil.rrule: February 2024 has four Mondays")
 
 # ---------------------------------------------------------------- business days
 add("5 business days after 2024-03-01", business_days_after(d("2024-03-01"), 5), "dateutil.rrule weekdays")
@@ -340,6 +339,53 @@ add("what time is it in Tokyo", zoned(now_tokyo), "zoneinfo Asia/Tokyo", as_of="
 now_sp = datetime(2024, 6, 12, 9, 30, tzinfo=ZoneInfo("UTC")).astimezone(ZoneInfo("America/Sao_Paulo"))
 add("current time in sao paulo", zoned(now_sp), "zoneinfo America/Sao_Paulo", as_of="2024-06-12T09:30Z")
 
+# ---------------------------------------------------------------- more of what models and people write
+add("What's the date 3 days from now?", R + timedelta(3), DT)
+add("what date will it be in 2 weeks", R + timedelta(14), DT)
+add("date 30 days from today", R + timedelta(30), DT)
+add("what was the date 100 days ago", R - timedelta(100), DT)
+add("a fortnight ago", R - timedelta(14), DT)
+add("in 18 months", R + relativedelta(months=18), RD)
+add("in 6 weeks", R + timedelta(42), DT)
+add("tomorrow's date", R + timedelta(1), DT)
+add("How many days until July 4th?", (d("2024-07-04") - R).days, DT + " (4 July, next occurrence)")
+add("how many days till new year", (d("2025-01-01") - R).days, DT + " (1 January, next occurrence)")
+add("days left until 2024-09-01", (d("2024-09-01") - R).days, DT)
+add("how many weeks until Christmas", (d("2024-12-25") - R).days // 7, DT + ", whole weeks")
+add("how many business days until 2024-07-01", business_days_between(R, d("2024-07-01")), "dateutil.rrule weekdays")
+add("How many days has it been since 2024-01-01?", (R - d("2024-01-01")).days, DT)
+add("how many days ago was 2024-05-01", (R - d("2024-05-01")).days, DT)
+add("When is the first Monday of October 2024?", date(2024, 10, 1) + relativedelta(weekday=MO(+1)), RD)
+add("second Monday of October 2024", date(2024, 10, 1) + relativedelta(weekday=MO(+2)), RD)
+add("the last Thursday of November 2024", date(2024, 11, 1) + relativedelta(day=31, weekday=TH(-1)), RD)
+add("when is the end of the month", R + relativedelta(day=31), RD)
+add("the last day of this month", R + relativedelta(day=31), RD)
+add("15 business days after June 3rd, 2024", business_days_after(d("2024-06-03"), 15), "dateutil.rrule weekdays")
+add("what is 10 business days from 2024-06-03", business_days_after(d("2024-06-03"), 10), "dateutil.rrule weekdays")
+add("5 working days from today", business_days_after(R, 5), "dateutil.rrule weekdays")
+add("what's 45 days before July 4, 2024", d("2024-07-04") - timedelta(45), DT)
+add("July 4, 2024 minus 45 days", d("2024-07-04") - timedelta(45), DT)
+add("Dec 25 2024 - 3 weeks", d("2024-12-25") - timedelta(21), DT)
+add("how many days between Jan 1 2024 and Mar 1 2024", (d("2024-03-01") - d("2024-01-01")).days, DT)
+add("number of days from 2024-02-01 to 2024-03-01", (d("2024-03-01") - d("2024-02-01")).days, DT)
+add("years between 1990-05-15 and 2024-06-12", relativedelta(d("2024-06-12"), d("1990-05-15")).years, RD + ".years")
+add("day of the week for 2025-01-01", NAMES[d("2025-01-01").weekday()], "datetime.date.weekday")
+add("is 2023 a leap year?", "no", "Gregorian rule: not divisible by 4")
+add("days in feb 2100", 28, "calendar.monthrange (2100 is no leap year)")
+add("what week number is 2024-06-12", "%d-W%02d-%d" % d("2024-06-12").isocalendar(), "datetime.date.isocalendar")
+add("2024-06-12T09:00 London to New York", zoned(datetime(2024, 6, 12, 9, 0, tzinfo=ZoneInfo("Europe/London")).astimezone(ZoneInfo("America/New_York"))),
+    "zoneinfo Europe/London to America/New_York", as_of=None)
+add("now in New York", zoned(datetime(2024, 6, 12, 9, 30, tzinfo=ZoneInfo("UTC")).astimezone(ZoneInfo("America/New_York"))),
+    "zoneinfo America/New_York", as_of="2024-06-12T09:30Z")
+add("the time in Sydney", zoned(datetime(2024, 6, 12, 9, 30, tzinfo=ZoneInfo("UTC")).astimezone(ZoneInfo("Australia/Sydney"))),
+    "zoneinfo Australia/Sydney", as_of="2024-06-12T09:30Z")
+add("next Friday", d("2025-01-03"), RD + ": days=+1, weekday=FR(+1), across a year end", as_of="2024-12-31")
+add("in 2 days", d("2024-03-01"), DT + " (across 29 February)", as_of="2024-02-28")
+add("end of the month", d("2023-02-28"), RD + ": day=31 in a common year", as_of="2023-02-14")
+add("last Friday of the month", R + relativedelta(day=31, weekday=FR(-1)), RD)
+add("days since Christmas", (d("2025-01-10") - d("2024-12-25")).days, DT + " (latest 25 December)", as_of="2025-01-10")
+add("3 days after 2024-02-27", d("2024-03-01"), DT)
+
 # ---------------------------------------------------------------- version 1 forms, still answered
 add("45 days ago", R - timedelta(45), DT)
 add("2024-01-31 + P1M", d("2024-01-31") + relativedelta(months=1), RD, as_of=None)
@@ -351,10 +397,7 @@ add("days in month 2023-02", 28, "calendar.monthrange", as_of=None)
 # ---------------------------------------------------------------- refused: ambiguous, with the readings
 refuse("weekday 03/04/2024", "ambiguous_date", "month/day and day/month give different dates",
        readings=["2024-03-04 (month/day)", "2024-04-03 (day/month)"])
-refuse("days until 05/06/2024", "ambiguous_date", "month/day and day/month give different dates",
-       readings=["2024-05-06 (month/day)", "2024-06-05 (day/month)"])
 refuse("Friday", "ambiguous_date", "a weekday alone: this, next or last", readings=["this Friday", "next Friday", "last Friday"])
-refuse("on Monday", "ambiguous_date", "a weekday alone: this, next or last", readings=["this Monday", "next Monday", "last Monday"])
 refuse("today in IST", "ambiguous_date", "IST: India, Irish or Israel Standard Time",
        readings=["Asia/Kolkata (India)", "Europe/Dublin (Irish Standard Time)", "Asia/Jerusalem (Israel)"])
 refuse("2024-03-10 09:00 CST to UTC", "ambiguous_date", "CST: US Central, China or Cuba",
@@ -363,13 +406,10 @@ refuse("2024-03-10 09:00 CST to UTC", "ambiguous_date", "CST: US Central, China 
 # ---------------------------------------------------------------- refused: no single answer, or no such thing
 refuse("next week", "syntax_error", "a week is a span; the error names start of next week")
 refuse("this weekend", "syntax_error", "two days; the error names this Saturday")
-refuse("days until March", "syntax_error", "a month is no date")
 refuse("end of March", "syntax_error", "no year given")
 refuse("weekday 3/4/24", "invalid_date", "a two-digit year: the century is a guess")
 refuse("February 30, 2024 + 1 day", "invalid_date", "February 2024 has 29 days")
 refuse("is 2024-07-04 a holiday in XX", "unknown_region", "XX is no ISO 3166 country")
-refuse("5 business days after 2024-03-01 in US-ZZ", "unknown_region", "ZZ is no US subdivision")
-refuse("now in Atlantis", "unknown_zone", "no such city in the tz database")
 refuse("when pigs fly", "syntax_error", "no date question")
 
 out = os.path.join(os.path.dirname(os.path.abspath(__file__)), "dates.jsonl")

@@ -31,7 +31,8 @@ final class Phrases {
       List.of("what", "date", "was", "it"), List.of("what", "date", "will", "it", "be"), List.of("what", "date", "is"),
       List.of("what", "date", "was"), List.of("what", "date", "will", "be"), List.of("what", "is"), List.of("what's"),
       List.of("whats"), List.of("what", "was"), List.of("what", "will", "be"), List.of("calculate"), List.of("compute"),
-      List.of("find"), List.of("give", "me"), List.of("the", "date"), List.of("date"), List.of("how", "many"));
+      List.of("find"), List.of("give", "me"), List.of("when", "is"), List.of("when", "was"), List.of("when", "will", "be"),
+      List.of("the", "date"), List.of("date"), List.of("how", "many"), List.of("number", "of"), List.of("the"));
   private static final Map<String, String> NAMED_DAYS = Map.of(
       "christmas", "--12-25", "christmas day", "--12-25", "christmas eve", "--12-24", "new year's eve", "--12-31",
       "new years eve", "--12-31", "new year's day", "--01-01", "new years day", "--01-01", "new year", "--01-01",
@@ -143,6 +144,8 @@ final class Phrases {
       switch (head) {
         case "today", "today's date", "todays date", "current date", "the current date", "date today", "the date today",
             "tonight", "it today" -> a = args("today");
+        case "tomorrow's date", "tomorrows date", "the date tomorrow" -> a = args("from_now", CanonicalForm.DURATION, "P1D");
+        case "yesterday's date", "yesterdays date", "the date yesterday" -> a = args("ago", CanonicalForm.DURATION, "P1D");
         case "now", "right now", "time", "the time", "current time", "the current time", "time now", "the time now",
             "time is it", "time is it now", "what time is it", "what time is it now", "local time", "the local time" -> a = args("now");
         case "yesterday" -> a = args("ago", CanonicalForm.DURATION, "P1D");
@@ -280,8 +283,12 @@ final class Phrases {
       }
       while (at < n && (w.get(at).equals("are") || w.get(at).equals("is") || w.get(at).equals("there") || w.get(at).equals("left")
           || w.get(at).equals("remain") || w.get(at).equals("remaining") || w.get(at).equals("have") || w.get(at).equals("has")
-          || w.get(at).equals("passed") || w.get(at).equals("gone") || w.get(at).equals("elapsed") || w.get(at).equals("it"))) {
+          || w.get(at).equals("passed") || w.get(at).equals("gone") || w.get(at).equals("elapsed") || w.get(at).equals("it")
+          || w.get(at).equals("been"))) {
         at++;
+      }
+      if (at + 2 < n && w.get(at).equals("ago") && (w.get(at + 1).equals("was") || w.get(at + 1).equals("is"))) {
+        return since(unit, at + 2); // how many days ago was DATE
       }
       if (at >= n) {
         return null;
