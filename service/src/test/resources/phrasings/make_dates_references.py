@@ -412,10 +412,61 @@ refuse("February 30, 2024 + 1 day", "invalid_date", "February 2024 has 29 days")
 refuse("is 2024-07-04 a holiday in XX", "unknown_region", "XX is no ISO 3166 country")
 refuse("when pigs fly", "syntax_error", "no date question")
 
+# The structured form of a phrase of each new kind: the same call without text. The test checks that
+# both forms give the same canonical arguments and the expected answer.
+STRUCTURED = {
+    "yesterday": {"op": "ago", "duration": "P1D"},
+    "tomorrow": {"op": "from_now", "duration": "P1D"},
+    "in 3 days": {"op": "from_now", "duration": "P3D"},
+    "in two weeks and 3 days": {"op": "from_now", "duration": "P2W3D"},
+    "3 days from now": {"op": "from_now", "duration": "P3D"},
+    "six months from now": {"op": "from_now", "duration": "P6M"},
+    "in 1 month": {"op": "from_now", "duration": "P1M"},
+    "two weeks ago": {"op": "ago", "duration": "P2W"},
+    "in 2 hours": {"op": "from_now", "duration": "PT2H"},
+    "today in Tokyo": {"op": "today", "zone": "Tokyo"},
+    "next Friday": {"op": "relative_weekday", "weekday": "friday", "which": "next"},
+    "last Friday": {"op": "relative_weekday", "weekday": "Fri", "which": "last"},
+    "this Friday": {"op": "relative_weekday", "weekday": "FRIDAY", "which": "this"},
+    "days until 2024-12-25": {"op": "until", "to": "2024-12-25"},
+    "How many days until Christmas?": {"op": "until", "to": "--12-25", "unit": "days"},
+    "days until December 25": {"op": "until", "to": "December 25"},
+    "weeks until 2024-12-25": {"op": "until", "to": "2024-12-25", "unit": "weeks"},
+    "days since 2024-01-01": {"op": "since", "date": "2024-01-01"},
+    "weeks since March 3, 2024": {"op": "since", "date": "March 3, 2024", "unit": "weeks"},
+    "business days until 2024-12-31 in GB-ENG": {"op": "until", "to": "2024-12-31", "unit": "business_days", "region": "gb-eng"},
+    "end of month": {"op": "end_of", "period": "month"},
+    "end of next month": {"op": "end_of", "period": "month", "shift": 1},
+    "start of last week": {"op": "start_of", "period": "week", "shift": -1},
+    "end of February 2024": {"op": "end_of", "period": "month", "date": "2024-02"},
+    "end of 2025": {"op": "end_of", "period": "year", "date": "2025"},
+    "end of the quarter": {"op": "end_of", "period": "quarter", "shift": 0},
+    "first Monday of September 2024": {"op": "nth_weekday", "weekday": "monday", "n": 1, "date": "2024-09"},
+    "last Friday of May 2024": {"op": "nth_weekday", "weekday": "friday", "n": -1, "date": "May 2024"},
+    "first Monday of next month": {"op": "nth_weekday", "weekday": "monday", "n": 1, "shift": 1},
+    "5 business days after 2024-03-01": {"op": "add_business_days", "date": "2024-03-01", "days": 5},
+    "3 business days before 2024-06-12": {"op": "add_business_days", "date": "2024-06-12", "days": -3},
+    "in 5 business days": {"op": "add_business_days", "days": 5},
+    "3 business days after December 23, 2024 in GB-ENG": {"op": "add_business_days", "date": "2024-12-23", "days": 3, "region": "GB-ENG"},
+    "4 business days after 2024-05-08 in Germany": {"op": "add_business_days", "date": "2024-05-08", "days": 4, "region": "DE"},
+    "business days from 2024-12-20 to 2025-01-06 in US": {"op": "between", "date": "2024-12-20", "to": "2025-01-06", "unit": "business_days", "region": "US"},
+    "is 2024-07-04 a business day in US": {"op": "is_business_day", "date": "2024-07-04", "region": "US"},
+    "Is 2024-12-26 a holiday in GB?": {"op": "is_holiday", "date": "2024-12-26", "region": "GB"},
+    "is 2100 a leap year": {"op": "leap_year", "date": "2100"},
+    "how many days in February 2024": {"op": "days_in_month", "date": "2024-02"},
+    "What day of the week was July 4, 1776?": {"op": "weekday", "date": "1776-07-04"},
+    "week number of 2024-03-01": {"op": "iso_week", "date": "2024-03-01"},
+    "90 days after March 1, 2024": {"op": "add", "date": "March 1, 2024", "duration": "P90D"},
+    "2024-03-10 09:00 New York to Tokyo": {"op": "convert_zone", "date": "2024-03-10T09:00", "zone": "America/New_York", "to": "Tokyo"},
+    "what time is it in Tokyo": {"op": "now", "zone": "Asia/Tokyo"},
+}
+
 out = os.path.join(os.path.dirname(os.path.abspath(__file__)), "dates.jsonl")
 with open(out, "w", encoding="utf-8") as f:
     for case in cases:
         if "expect" in case:
             case["expect"] = str(case["expect"])
+        if case["text"] in STRUCTURED:
+            case["structured"] = STRUCTURED[case["text"]]
         f.write(json.dumps(case, ensure_ascii=False) + "\n")
 print(len(cases), "cases written to", out)

@@ -63,6 +63,29 @@ final class DatesPhrasingsTest {
   }
 
   @Test
+  void structuredForm_givesTheTextFormsCanonicalArgumentsAndAnswer() {
+    List<String> wrong = new ArrayList<>();
+    int checked = 0;
+    for (JsonNode c : CASES) {
+      if (!c.has("structured")) {
+        continue;
+      }
+      checked++;
+      ObjectNode structured = ((ObjectNode) c.get("structured")).deepCopy();
+      c.get("args").properties().forEach(e -> structured.set(e.getKey(), e.getValue()));
+      Outcome fromText = run(c, OptionalInt.empty());
+      Outcome fromArgs = INVOKER.invoke(new CallRequest("dates", OptionalInt.empty(), structured, null, null, null));
+      if (!fromArgs.isOk() || !fromArgs.text().equals(c.get("expect").asString())
+          || !fromArgs.canonical().equals(fromText.canonical())) {
+        wrong.add(c.get("text").asString() + ": text form " + fromText.canonical().map(Object::toString).orElse("-") + " -> "
+            + fromText.text() + "; structured " + fromArgs.canonical().map(Object::toString).orElse("-") + " -> " + fromArgs.text());
+      }
+    }
+    assertTrue(checked >= 40, "structured forms checked: " + checked);
+    assertEquals(List.of(), wrong);
+  }
+
+  @Test
   void everyPhrasing_getsItsExpectedAnswerOrRefusal_fromTheNewestVersion() {
     assertEquals(2, CATALOG.newest("dates").orElseThrow().tool().id().version());
     List<String> wrong = new ArrayList<>();
