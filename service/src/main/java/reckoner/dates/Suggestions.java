@@ -30,6 +30,9 @@ final class Suggestions {
       "days between March 1, 2024 and June 1, 2024", "2024-01-31 + 1 month", "90 days after March 1, 2024",
       "2024-03-10 09:00 New York to London", "2024-10-03 in hebrew");
 
+  /** Words that say nothing of which phrasing was meant. */
+  private static final Set<String> STOP_WORDS = Set.of("the", "a", "an", "of", "is", "in", "to", "what", "it", "be", "on", "at", "for");
+
   private Suggestions() {}
 
   /** syntax_error naming the nearest working phrase. */
@@ -87,6 +90,7 @@ final class Suggestions {
     for (String word : words) {
       asked.add(shape(word));
     }
+    asked.removeAll(STOP_WORDS);
     int best = 0;
     List<String> out = new ArrayList<>();
     for (String example : EXAMPLES) {
@@ -94,7 +98,7 @@ final class Suggestions {
       Set<String> seen = new HashSet<>();
       for (String word : example.toLowerCase(Locale.ROOT).split(" ")) {
         String s = shape(word);
-        if (seen.add(s) && asked.contains(s)) {
+        if (seen.add(s) && asked.contains(s) && !STOP_WORDS.contains(s)) {
           shared += s.equals("#") || s.equals("@") ? 1 : 2;
         }
       }
@@ -113,6 +117,18 @@ final class Suggestions {
   private static String shape(String word) {
     if (WrittenDates.isDigits(word)) {
       return "#";
+    }
+    switch (word) {
+      case "till", "til", "untill", "before" -> {
+        return "until";
+      }
+      case "working", "work", "workdays", "weekdays" -> {
+        return "business";
+      }
+      case "ago", "past", "previous" -> {
+        return "last";
+      }
+      default -> { }
     }
     if (!word.isEmpty() && Character.isDigit(word.charAt(0))) {
       return "@";
