@@ -158,7 +158,7 @@ final class AnswersV2 {
     if (!text.startsWith("--")) {
       return IsoText.date(text);
     }
-    MonthDay day = MonthDay.parse(text);
+    MonthDay day = MonthDay.of(Integer.parseInt(text.substring(2, 4)), Integer.parseInt(text.substring(5, 7)));
     int year = reference.getYear();
     for (int i = 0; i < 9; i++) { // February 29 may be up to eight years away
       int y = forward ? year + i : year - i;

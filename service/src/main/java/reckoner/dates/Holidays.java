@@ -53,6 +53,8 @@ final class Holidays {
   private static final Set<String> CODES = codes();
   private static final Map<String, String> BY_NAME = names();
   private static final Map<String, HolidayManager> MANAGERS = new ConcurrentHashMap<>();
+  /** Region spellings already read, to their canonical codes: a subdivision is checked against the rules once. */
+  private static final Map<String, String> KNOWN = new ConcurrentHashMap<>();
   private static final Cache<String, Set<LocalDate>> DAYS_OFF = Caffeine.newBuilder().maximumSize(4096).build();
 
   private Holidays() {}
@@ -89,6 +91,18 @@ final class Holidays {
    * unknown_region with the nearest codes when the rules do not know it.
    */
   static String region(String text) throws ToolException {
+    String known = KNOWN.get(text);
+    if (known != null) {
+      return known;
+    }
+    String canonical = readRegion(text);
+    if (KNOWN.size() < 10_000) { // valid spellings only, so the map stays small
+      KNOWN.put(text, canonical);
+    }
+    return canonical;
+  }
+
+  private static String readRegion(String text) throws ToolException {
     String s = text.strip();
     String lower = s.toLowerCase(Locale.ROOT);
     if (lower.startsWith("the ")) {

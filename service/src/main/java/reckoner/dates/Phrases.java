@@ -40,6 +40,18 @@ final class Phrases {
   private static final Map<String, Integer> ORDINALS = Map.of(
       "first", 1, "1st", 1, "second", 2, "2nd", 2, "third", 3, "3rd", 3, "fourth", 4, "4th", 4, "fifth", 5, "5th", 5);
 
+  private static final List<List<String>> WEEKDAY_LEADS = List.of(List.of("what", "day", "of", "the", "week"),
+      List.of("which", "day", "of", "the", "week"), List.of("what", "weekday"), List.of("which", "weekday"), List.of("what", "day"),
+      List.of("which", "day"), List.of("day", "of", "the", "week"), List.of("day", "of", "week"), List.of("weekday"));
+  private static final List<List<String>> DAY_OF_YEAR_LEADS = List.of(List.of("what", "day", "of", "the", "year"),
+      List.of("which", "day", "of", "the", "year"), List.of("day", "of", "the", "year"), List.of("day", "of", "year"),
+      List.of("ordinal", "day"));
+  private static final List<List<String>> WEEK_LEADS = List.of(List.of("what", "iso", "week"), List.of("which", "iso", "week"),
+      List.of("what", "week", "number"), List.of("which", "week", "number"), List.of("what", "week"), List.of("which", "week"),
+      List.of("iso", "week", "number"), List.of("iso", "week"), List.of("week", "number"));
+  private static final List<List<String>> QUARTER_LEADS = List.of(List.of("what", "quarter"), List.of("which", "quarter"),
+      List.of("quarter"));
+
   private Phrases() {}
 
   /** The structured arguments {@code text} spells; syntax_error (or the value's own error) when it spells none. */
@@ -667,21 +679,11 @@ final class Phrases {
       }
       // what day (of the week) is DATE / which day was DATE / day of the week of DATE / weekday of DATE
       Map<String, Object> a;
-      if ((a = question("weekday", List.of(List.of("what", "day", "of", "the", "week"), List.of("which", "day", "of", "the", "week"),
-          List.of("what", "weekday"), List.of("which", "weekday"), List.of("what", "day"), List.of("which", "day"),
-          List.of("day", "of", "the", "week"), List.of("day", "of", "week"), List.of("weekday")))) != null) {
+      if ((a = question("weekday", WEEKDAY_LEADS)) != null || (a = question("day_of_year", DAY_OF_YEAR_LEADS)) != null
+          || (a = question("iso_week", WEEK_LEADS)) != null) {
         return a;
       }
-      if ((a = question("day_of_year", List.of(List.of("what", "day", "of", "the", "year"), List.of("which", "day", "of", "the", "year"),
-          List.of("day", "of", "the", "year"), List.of("day", "of", "year"), List.of("ordinal", "day")))) != null) {
-        return a;
-      }
-      if ((a = question("iso_week", List.of(List.of("what", "iso", "week"), List.of("which", "iso", "week"), List.of("what", "week", "number"),
-          List.of("which", "week", "number"), List.of("what", "week"), List.of("which", "week"), List.of("iso", "week", "number"),
-          List.of("iso", "week"), List.of("week", "number")))) != null) {
-        return a;
-      }
-      return question("quarter", List.of(List.of("what", "quarter"), List.of("which", "quarter"), List.of("quarter")));
+      return question("quarter", QUARTER_LEADS);
     }
 
     /** {@code LEAD [is|was|will be|of|for] DATE [in|fall on|fall in]}: one date question. */
