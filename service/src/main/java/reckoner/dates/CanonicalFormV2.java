@@ -2,18 +2,15 @@ package reckoner.dates;
 
 import java.math.BigDecimal;
 import java.time.DayOfWeek;
-import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import java.util.TreeSet;
-import java.util.stream.Collectors;
 import reckoner.dates.WrittenDates.Kind;
 import reckoner.dates.WrittenDates.Written;
 import reckoner.tool.Arguments;
-import reckoner.tool.ErrorCode;
 import reckoner.tool.ToolException;
 
 /**
@@ -370,15 +367,5 @@ final class CanonicalFormV2 {
       out = out.with(CanonicalForm.LOCALE, canonicalLocale != null ? canonicalLocale : Locales.DEFAULT_TAG);
     }
     return out;
-  }
-
-  /** Every op name of version 2, for messages. */
-  static String opNames() {
-    return Op.names() + ", " + Arrays.stream(NewOp.values()).map(NewOp::wireName).collect(Collectors.joining(", "));
-  }
-
-  /** Whether {@code code} means the arguments could not be read as one call (400) rather than computed (422). */
-  static boolean isUnreadable(ErrorCode code) {
-    return code == ErrorCode.INVALID_ARGUMENT;
   }
 }

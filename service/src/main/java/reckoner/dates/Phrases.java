@@ -587,9 +587,6 @@ final class Phrases {
         if (date == null) {
           return null;
         }
-        if (op.equals("is_business_day") && what.equals("weekday") && cut.region == null) {
-          op = "is_business_day";
-        }
         Map<String, Object> a = args(op);
         date.ifPresent(d -> a.put(CanonicalForm.DATE, d));
         if (cut.region != null) {

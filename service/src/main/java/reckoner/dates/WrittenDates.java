@@ -265,7 +265,7 @@ final class WrittenDates {
   }
 
   private static boolean isYear(String word) {
-    return word.length() >= 1 && word.length() <= 4 && isDigits(word) && word.length() == 4;
+    return word.length() == 4 && isDigits(word);
   }
 
   static boolean isDigits(String s) {
