@@ -22,6 +22,7 @@ final class Amounts {
       Map.entry("thirteen", 13L), Map.entry("fourteen", 14L), Map.entry("fifteen", 15L), Map.entry("sixteen", 16L),
       Map.entry("seventeen", 17L), Map.entry("eighteen", 18L), Map.entry("nineteen", 19L), Map.entry("twenty", 20L),
       Map.entry("thirty", 30L), Map.entry("forty", 40L), Map.entry("fifty", 50L), Map.entry("sixty", 60L),
+      Map.entry("seventy", 70L), Map.entry("eighty", 80L),
       Map.entry("ninety", 90L), Map.entry("hundred", 100L));
   private static final int MAX_DIGITS = 18;
 
