@@ -3,6 +3,7 @@ package reckoner;
 import java.util.List;
 import reckoner.arith.ArithTool;
 import reckoner.dates.DatesTool;
+import reckoner.dates.DatesToolV2;
 import reckoner.facts.FactLoadException;
 import reckoner.facts.FactSource;
 import reckoner.facts.FactStore;
@@ -19,6 +20,7 @@ public final class Tools {
     return List.of(
         new ArithTool(),
         new DatesTool(),
+        new DatesToolV2(),
         new UnitsTool(),
         new FactsTool(facts));
   }

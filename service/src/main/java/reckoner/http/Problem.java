@@ -26,7 +26,7 @@ final class Problem {
       case UNAVAILABLE -> 503;
       case INTERNAL_ERROR -> 500;
       case SYNTAX_ERROR, DOMAIN_ERROR, OVERFLOW, LIMIT_EXCEEDED,
-          INVALID_DATE, INVALID_DURATION, UNKNOWN_ZONE, UNKNOWN_CALENDAR, OUT_OF_RANGE,
+          INVALID_DATE, INVALID_DURATION, UNKNOWN_ZONE, UNKNOWN_CALENDAR, OUT_OF_RANGE, AMBIGUOUS_DATE, UNKNOWN_REGION,
           UNKNOWN_UNIT, AMBIGUOUS_UNIT, DIMENSION_MISMATCH, UNSPLICEABLE, DATA_ERROR -> 422;
     };
   }
@@ -56,6 +56,8 @@ final class Problem {
       case UNKNOWN_ZONE -> "Unknown time zone";
       case UNKNOWN_CALENDAR -> "Unknown calendar";
       case OUT_OF_RANGE -> "Out of range";
+      case AMBIGUOUS_DATE -> "Ambiguous date";
+      case UNKNOWN_REGION -> "Unknown holiday region";
       case UNKNOWN_UNIT -> "Unknown unit";
       case AMBIGUOUS_UNIT -> "Ambiguous unit";
       case DIMENSION_MISMATCH -> "Dimension mismatch";

@@ -39,6 +39,10 @@ public enum ErrorCode {
   UNKNOWN_ZONE,
   UNKNOWN_CALENDAR,
   OUT_OF_RANGE,
+  /** A date, time, zone or region that has more than one reading; the readings are listed. */
+  AMBIGUOUS_DATE,
+  /** A holiday region that the holiday rules do not know. */
+  UNKNOWN_REGION,
   // units
   UNKNOWN_UNIT,
   AMBIGUOUS_UNIT,

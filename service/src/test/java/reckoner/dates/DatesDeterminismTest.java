@@ -26,7 +26,7 @@ import tools.jackson.databind.JsonNode;
 
 /**
  * The same arguments give the same bytes whatever the JVM's default locale and time zone: the
- * corpus {@code corpus/dates.jsonl} (every op, text and structured, several wording locales) runs
+ * corpus {@code corpus/dates.jsonl} (every op of dates@1 and dates@2, text and structured, several wording locales) runs
  * under the defaults of this JVM and again under tr-TR (whose dotless i breaks careless
  * lower-casing), ar-EG, de-DE and hi-IN with the zone Pacific/Kiritimati (UTC+14).
  */
@@ -58,7 +58,7 @@ final class DatesDeterminismTest {
 
   @Test
   void corpus_hasFortyCallsOrMore_coveringEveryOp_allAnsweredOnOneLine() throws IOException {
-    List<JsonNode> calls = corpus();
+    List<JsonNode> calls = corpus().stream().filter(c -> c.get("version").asInt() == 1).collect(Collectors.toList());
     assertTrue(calls.size() >= 40, "only " + calls.size());
     Set<String> ops = calls.stream().map(this::op).collect(Collectors.toSet());
     for (Op op : Op.values()) {
@@ -73,7 +73,7 @@ final class DatesDeterminismTest {
   /** Runs every call through a catalog built now, under whatever defaults are in force. */
   private static List<String> run(List<JsonNode> calls) {
     Invoker invoker = new Invoker(
-        ToolCatalog.of(ToolRegistry.of(List.of(new DatesTool())), new SpecLoader(DatesCalls.JSON)), DatesCalls.CLOCK);
+        ToolCatalog.of(ToolRegistry.of(List.of(new DatesTool(), new DatesToolV2())), new SpecLoader(DatesCalls.JSON)), DatesCalls.CLOCK);
     List<String> answers = new ArrayList<>();
     for (JsonNode call : calls) {
       Outcome outcome = invoker.invoke(CallRequest.of(call.get("tool").asString(), call.get("version").asInt(), call.get("args")));
