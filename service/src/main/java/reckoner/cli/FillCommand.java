@@ -123,7 +123,7 @@ public final class FillCommand {
     ObjectNode result = json.createObjectNode();
     JsonNode doc;
     try {
-      doc = line.tooLong() ? null : json.readTree(line.bytes());
+      doc = line.tooLong() || !reckoner.io.Utf8.isWellFormed(line.bytes()) ? null : json.readTree(line.bytes());
     } catch (JacksonException e) {
       doc = null;
     }

@@ -89,8 +89,10 @@ final class BatchRoutes {
 
   private void json(Context ctx, Tags tags) throws InterruptedException, ExecutionException {
     JsonNode body;
+    byte[] bytes = bodies.read(ctx);
+    Bodies.requireUtf8(bytes);
     try {
-      body = responses.json().readTree(bodies.read(ctx));
+      body = responses.json().readTree(bytes);
     } catch (JacksonException e) {
       throw new ApiException(ErrorCode.INVALID_ARGUMENT, "the body is not valid JSON: " + Bodies.describe(e));
     }
@@ -262,7 +264,11 @@ final class BatchRoutes {
     }
     JsonNode item;
     try {
+      Bodies.requireUtf8(line.bytes());
       item = responses.json().readTree(line.bytes());
+    } catch (ApiException e) {
+      return new Pending(ResultJson.refused(responses.object(), null, ToolError.of(ErrorCode.INVALID_ARGUMENT,
+          "line " + line.number() + " is not valid UTF-8"), line.number()), null, null);
     } catch (JacksonException e) {
       return new Pending(ResultJson.refused(responses.object(), null, ToolError.of(ErrorCode.INVALID_ARGUMENT,
           "line " + line.number() + " is not valid JSON: " + Bodies.describe(e)), line.number()), null, null);

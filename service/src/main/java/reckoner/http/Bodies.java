@@ -3,7 +3,6 @@ package reckoner.http;
 import io.javalin.http.Context;
 import java.io.IOException;
 import java.io.InputStream;
-import java.io.UncheckedIOException;
 import java.nio.ByteBuffer;
 import java.nio.charset.CharacterCodingException;
 import java.nio.charset.CodingErrorAction;
@@ -38,8 +37,9 @@ final class Bodies {
         throw tooLarge();
       }
       return bytes;
-    } catch (IOException e) {
-      throw new UncheckedIOException(e);
+    } catch (IOException e) { // the client stopped sending (idle timeout) or went away mid-body
+      throw new ApiException(ErrorCode.INVALID_ARGUMENT, "the request body could not be read to its end: the client "
+          + "stopped sending or closed the connection");
     }
   }
 
@@ -50,6 +50,13 @@ final class Bodies {
           .onUnmappableCharacter(CodingErrorAction.REPORT)
           .decode(ByteBuffer.wrap(bytes)).toString();
     } catch (CharacterCodingException e) {
+      throw new ApiException(ErrorCode.INVALID_ARGUMENT, "the body is not valid UTF-8");
+    }
+  }
+
+  /** Refuses bytes that are not well-formed UTF-8 ({@link reckoner.io.Utf8#isWellFormed}) before JSON reads them. */
+  static void requireUtf8(byte[] bytes) {
+    if (!reckoner.io.Utf8.isWellFormed(bytes)) {
       throw new ApiException(ErrorCode.INVALID_ARGUMENT, "the body is not valid UTF-8");
     }
   }

@@ -106,6 +106,7 @@ final class SpliceRoutes {
           + field + ", not " + (type.isEmpty() ? "no Content-Type" : MediaTypes.clip(type)));
     }
     JsonNode body;
+    Bodies.requireUtf8(bytes);
     try {
       body = responses.json().readTree(bytes);
     } catch (JacksonException e) {

@@ -124,6 +124,7 @@ final class ToolRoutes {
         if (body.length == 0) {
           throw new ApiException(ErrorCode.INVALID_ARGUMENT, "the request body is empty; send the arguments as a JSON object");
         }
+        Bodies.requireUtf8(body);
         try {
           return responses.json().readTree(body);
         } catch (JacksonException e) {
