@@ -134,6 +134,9 @@ public final class Service implements AutoCloseable {
     }
     LOG.info("serving {} tool versions on http://{}:{} (data dir {})", catalog.all().size(), config.host(), http.port(),
         config.dataDir());
+    Thread warmUp = new Thread(() -> catalog.all().forEach(e -> e.tool().warmUp()), "reckoner-warm-up");
+    warmUp.setDaemon(true);
+    warmUp.start(); // after the port is open: readiness does not wait for it
     if (keys != null) {
       LOG.info("API keys in force from {}; every endpoint but health, metrics, the OpenAPI document, tool specs and "
           + "problem types needs one", keys.file());

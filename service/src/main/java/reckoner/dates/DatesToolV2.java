@@ -43,6 +43,11 @@ public final class DatesToolV2 implements Tool {
 
   /** Answers that used a region's holidays name the holiday rules' version. */
   @Override
+  public void warmUp() {
+    Holidays.warmUp(); // the holiday rules' XML binding starts in about a second the first time
+  }
+
+  @Override
   public Optional<String> dataVersion(Arguments canonical) {
     return canonical.has(CanonicalFormV2.REGION) ? Optional.of(Holidays.DATA_VERSION) : Optional.empty();
   }

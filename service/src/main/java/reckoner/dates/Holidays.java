@@ -182,6 +182,11 @@ final class Holidays {
     return List.copyOf(out);
   }
 
+  /** Loads the rules of one region, which starts the library's XML binding that every region needs. */
+  static void warmUp() {
+    manager("GB");
+  }
+
   private static HolidayManager manager(String code) {
     return MANAGERS.computeIfAbsent(code, c -> HolidayManager.getInstance(ManagerParameters.create(c.toLowerCase(Locale.ROOT))));
   }

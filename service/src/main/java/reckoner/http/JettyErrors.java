@@ -50,6 +50,8 @@ final class JettyErrors extends ErrorHandler {
     return switch (status) {
       case 431 -> ToolError.of(ErrorCode.HEADER_TOO_LARGE, "the request line and headers are larger than the server reads "
           + "(setting max-header-bytes)");
+      case 414 -> ToolError.of(ErrorCode.URI_TOO_LONG, "the request's URI is longer than the server reads "
+          + "(setting max-header-bytes)");
       case 413 -> ToolError.of(ErrorCode.PAYLOAD_TOO_LARGE, "the request body is larger than the server reads");
       case 404 -> ToolError.of(ErrorCode.UNKNOWN_ENDPOINT, "no such endpoint; see GET /openapi.json");
       case 405 -> ToolError.of(ErrorCode.METHOD_NOT_ALLOWED, why);

@@ -22,6 +22,7 @@ final class Problem {
       case PAYLOAD_TOO_LARGE -> 413;
       case UNSUPPORTED_MEDIA_TYPE -> 415;
       case HEADER_TOO_LARGE -> 431;
+      case URI_TOO_LONG -> 414;
       case RATE_LIMITED -> 429;
       case UNAVAILABLE -> 503;
       case INTERNAL_ERROR -> 500;
@@ -44,6 +45,7 @@ final class Problem {
       case PAYLOAD_TOO_LARGE -> "Payload too large";
       case UNSUPPORTED_MEDIA_TYPE -> "Unsupported media type";
       case HEADER_TOO_LARGE -> "Request header fields too large";
+      case URI_TOO_LONG -> "URI too long";
       case RATE_LIMITED -> "Rate limited";
       case UNAVAILABLE -> "Unavailable";
       case INTERNAL_ERROR -> "Internal error";

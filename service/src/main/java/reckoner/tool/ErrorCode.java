@@ -21,6 +21,8 @@ public enum ErrorCode {
   UNSUPPORTED_MEDIA_TYPE,
   /** The request line and headers are larger than the server reads (431). */
   HEADER_TOO_LARGE,
+  /** The request's URI is longer than the server reads (414). */
+  URI_TOO_LONG,
   NOT_ACCEPTABLE,
   /** A defect on our side; never caused by input alone. Shows no internals. */
   INTERNAL_ERROR,

@@ -31,4 +31,11 @@ public interface Tool {
   default java.util.Optional<String> dataVersion(Arguments canonical) {
     return java.util.Optional.empty();
   }
+
+  /**
+   * Loads what the first call would otherwise load (rule files, libraries that start slowly), so
+   * that call is as fast as the rest. The service runs it once, off the request threads, after it
+   * starts; by default nothing.
+   */
+  default void warmUp() {}
 }

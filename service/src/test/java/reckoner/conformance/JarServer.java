@@ -81,7 +81,7 @@ public final class JarServer implements AutoCloseable {
             "--port", Integer.toString(port), "--data-dir", dataDir.toString()));
         command.addAll(args);
         ProcessBuilder pb = new ProcessBuilder(command).redirectErrorStream(true)
-            .redirectOutput(ProcessBuilder.Redirect.appendTo(log.toFile()));
+            .redirectOutput(ProcessBuilder.Redirect.to(log.toFile()));
         pb.environment().keySet().removeIf(k -> k.startsWith("RECKONER_"));
         pb.environment().putAll(env);
         Process p = pb.start();
