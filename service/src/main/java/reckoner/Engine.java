@@ -18,8 +18,8 @@ import reckoner.ledger.LedgerWriter;
 import reckoner.ledger.Retention;
 import reckoner.config.ConfigException;
 import reckoner.config.ServiceConfig;
-import reckoner.facts.FactLoadException;
-import reckoner.facts.FactSource;
+import reckoner.data.DataLoadException;
+import reckoner.data.DataSource;
 import reckoner.facts.FactStore;
 import reckoner.spec.SpecLoader;
 import reckoner.spec.ToolCatalog;
@@ -94,9 +94,9 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
    * {@code facts-dirs} entry (which must exist). A bad file stops the start, naming file and line.
    */
   static FactStore openFacts(ServiceConfig config) {
-    List<FactSource> sources = new ArrayList<>();
+    List<DataSource> sources = new ArrayList<>();
     if (config.factsDemo()) {
-      sources.add(FactSource.demo());
+      sources.add(FactStore.demo());
     }
     Path own = config.dataDir().resolve("facts");
     try {
@@ -104,16 +104,16 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
     } catch (java.io.IOException e) {
       throw new ConfigException("data-dir: cannot create " + own + ": " + e.getMessage());
     }
-    sources.add(FactSource.directory(own));
+    sources.add(DataSource.directory(own));
     for (Path dir : config.factsDirs()) {
       if (!Files.isDirectory(dir)) {
         throw new ConfigException("facts-dirs: no such directory: " + dir);
       }
-      sources.add(FactSource.directory(dir));
+      sources.add(DataSource.directory(dir));
     }
     try {
       return FactStore.open(sources, config.factsDefaultSet()); // the store logs each load itself
-    } catch (FactLoadException e) {
+    } catch (DataLoadException e) {
       throw new ConfigException("fact files could not be loaded: " + e.getMessage());
     } catch (IllegalArgumentException e) {
       throw new ConfigException("facts-default-set: " + e.getMessage());

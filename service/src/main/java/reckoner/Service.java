@@ -19,7 +19,7 @@ import java.util.concurrent.Executors;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import reckoner.config.ServiceConfig;
-import reckoner.facts.FactsWatcher;
+import reckoner.data.DataWatcher;
 import reckoner.ledger.LedgerWriter;
 import reckoner.http.HttpApi;
 import reckoner.spec.Json;
@@ -38,10 +38,10 @@ public final class Service implements AutoCloseable {
 
   private final Javalin http;
   private final ExecutorService calls;
-  private final FactsWatcher watcher; // null when polling is off
+  private final DataWatcher watcher; // null when polling is off
   private final Engine engine;
 
-  private Service(Javalin http, ExecutorService calls, FactsWatcher watcher, Engine engine) {
+  private Service(Javalin http, ExecutorService calls, DataWatcher watcher, Engine engine) {
     this.http = http;
     this.calls = calls;
     this.watcher = watcher;
@@ -83,8 +83,8 @@ public final class Service implements AutoCloseable {
         .description("Ledger write attempts that failed").register(metrics);
     FunctionCounter.builder("reckoner.ledger.records.refused", w, LedgerWriter::recordsRefused)
         .description("Invocations refused (queue full, store down, closed); their calls were answered 503").register(metrics);
-    FactsWatcher watcher = config.factsPollMillis() > 0
-        ? FactsWatcher.over(engine.facts(), java.time.Duration.ofMillis(config.factsPollMillis())).start()
+    DataWatcher watcher = config.factsPollMillis() > 0
+        ? DataWatcher.over(engine.facts().data(), java.time.Duration.ofMillis(config.factsPollMillis())).start()
         : null;
 
     HttpApi.Settings settings = new HttpApi.Settings(config.maxBodyBytes(), config.maxBatchBytes(), engine.markup(),

@@ -3,8 +3,7 @@ package reckoner;
 import java.util.List;
 import reckoner.arith.ArithTool;
 import reckoner.dates.DatesTool;
-import reckoner.facts.FactLoadException;
-import reckoner.facts.FactSource;
+import reckoner.data.DataLoadException;
 import reckoner.facts.FactStore;
 import reckoner.facts.FactsTool;
 import reckoner.tool.Tool;
@@ -26,8 +25,8 @@ public final class Tools {
   /** The standard tools over the demo fact sets only: for tests, benchmarks and examples. */
   public static List<Tool> demo() {
     try {
-      return standard(FactStore.open(List.of(FactSource.demo()), FactSource.DEMO_DEFAULT_SET));
-    } catch (FactLoadException e) {
+      return standard(FactStore.open(List.of(FactStore.demo()), FactStore.DEMO_DEFAULT_SET));
+    } catch (DataLoadException e) {
       throw new IllegalStateException("the demo fact sets do not load: " + e.getMessage(), e);
     }
   }
