@@ -21,6 +21,7 @@ import reckoner.config.ServiceConfig;
 import reckoner.data.DataLoadException;
 import reckoner.data.DataSource;
 import reckoner.facts.FactStore;
+import reckoner.search.SearchStore;
 import reckoner.spec.SpecLoader;
 import reckoner.spec.ToolCatalog;
 import reckoner.splice.Markup;
@@ -32,9 +33,10 @@ import tools.jackson.databind.json.JsonMapper;
  * their specs, the fact store, the answer cache, the invoker and the configured markup. Wiring only.
  */
 record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup markup, FactStore facts,
-    LedgerStore ledger, LedgerWriter writer, Retention retention) implements AutoCloseable {
+    SearchStore search, LedgerStore ledger, LedgerWriter writer, Retention retention) implements AutoCloseable {
   static Engine build(ServiceConfig config, Clock clock, JsonMapper json, LedgerStats.CommitListener commits) {
     FactStore facts = openFacts(config);
+    SearchStore search = openSearch(config);
     LedgerStore ledger = openLedger(config);
     LedgerWriter writer = LedgerWriter.start(ledger, LedgerWriter.Settings.defaults().withQueueCapacity(config.ledgerQueue()),
         commits);
@@ -43,7 +45,7 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
     Retention retention = policy.keepsAll() ? null : Retention.start(ledger, policy, clock, Duration.ofMinutes(1));
     InvocationSink sink = new LedgerSink(writer,
         LedgerSink.Durability.parse(config.durability()).orElseThrow(() -> new ConfigException("durability: " + config.durability())));
-    ToolCatalog catalog = ToolCatalog.of(ToolRegistry.of(Tools.standard(facts)), new SpecLoader(json));
+    ToolCatalog catalog = ToolCatalog.of(ToolRegistry.of(Tools.standard(facts, search)), new SpecLoader(json));
     AnswerCache cache = AnswerCache.ofMaximumSize(config.cacheSize());
     Markup markup;
     try {
@@ -53,7 +55,8 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
     }
     InvocationIds ids = new InvocationIds(clock);
     ledger.newestBeyond(0).ifPresent(newest -> ids.startAfter(UUID.fromString(newest))); // ids keep rising across restarts
-    return new Engine(catalog, cache, new Invoker(catalog, clock, ids, cache, sink), markup, facts, ledger, writer, retention);
+    return new Engine(catalog, cache, new Invoker(catalog, clock, ids, cache, sink), markup, facts, search, ledger, writer,
+        retention);
   }
 
   /** The ledger store the settings name, its schema created or migrated. */
@@ -87,6 +90,7 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
     }
     writer.close();
     ledger.close();
+    search.close();
   }
 
   /**
@@ -117,6 +121,40 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
       throw new ConfigException("fact files could not be loaded: " + e.getMessage());
     } catch (IllegalArgumentException e) {
       throw new ConfigException("facts-default-set: " + e.getMessage());
+    }
+  }
+
+  /**
+   * The search collections: the demo (unless turned off), {@code <data dir>/search} (created if
+   * missing), and every {@code search-dirs} entry (which must exist); on-disk indexes under {@link
+   * ServiceConfig#searchIndexPath()}. A bad file stops the start, naming file and line.
+   */
+  static SearchStore openSearch(ServiceConfig config) {
+    List<DataSource> sources = new ArrayList<>();
+    if (config.searchDemo()) {
+      sources.add(SearchStore.demo());
+    }
+    Path own = config.dataDir().resolve("search");
+    try {
+      Files.createDirectories(own); // always a source, so files dropped in later load on reload
+    } catch (java.io.IOException e) {
+      throw new ConfigException("data-dir: cannot create " + own + ": " + e.getMessage());
+    }
+    sources.add(DataSource.directory(own));
+    for (Path dir : config.searchDirs()) {
+      if (!Files.isDirectory(dir)) {
+        throw new ConfigException("search-dirs: no such directory: " + dir);
+      }
+      sources.add(DataSource.directory(dir));
+    }
+    SearchStore.Settings settings = new SearchStore.Settings(java.util.Optional.of(config.searchIndexPath()),
+        config.searchMemoryChars());
+    try {
+      return SearchStore.open(sources, config.searchDefaultCollection(), settings, reckoner.data.ReloadListener.none());
+    } catch (DataLoadException e) {
+      throw new ConfigException("search collection files could not be loaded: " + e.getMessage());
+    } catch (IllegalArgumentException e) {
+      throw new ConfigException("search-default-collection: " + e.getMessage());
     }
   }
 

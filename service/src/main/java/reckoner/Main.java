@@ -66,6 +66,18 @@ public final class Main implements Runnable {
     @Option(names = "--facts-default-set", description = "The fact set read when a call names none (default demo).")
     String factsDefaultSet;
 
+    @Option(names = "--search-dir", description = "A directory of search collection files (*.jsonl) beside <data dir>/search; repeatable.")
+    List<Path> searchDirs;
+
+    @Option(names = "--search-demo", negatable = true, description = "Serve the shipped demo search collection (default true).")
+    Boolean searchDemo;
+
+    @Option(names = "--search-default-collection", description = "The collection searched when a call names none (default demo).")
+    String searchDefaultCollection;
+
+    @Option(names = "--search-index-dir", description = "Where on-disk search indexes live (default <data dir>/search-index).")
+    Path searchIndexDir;
+
     @Option(names = "--ledger", description = "Where invocations are kept: sqlite (default, <data dir>/ledger.db) or postgresql.")
     String ledger;
 
@@ -101,6 +113,12 @@ public final class Main implements Runnable {
       put("ledger-url", ledgerUrl);
       put("durability", durability);
       put("facts-default-set", factsDefaultSet);
+      if (searchDirs != null) {
+        put("search-dirs", String.join(",", searchDirs.stream().map(Path::toString).toList()));
+      }
+      put("search-demo", searchDemo);
+      put("search-default-collection", searchDefaultCollection);
+      put("search-index-dir", searchIndexDir);
       Path file = configFile != null ? configFile
           : System.getenv("RECKONER_CONFIG") != null ? Path.of(System.getenv("RECKONER_CONFIG")) : null;
       return ServiceConfig.from(ServiceConfig.merge(file, System.getenv(), flags));

@@ -39,12 +39,14 @@ public final class Service implements AutoCloseable {
   private final Javalin http;
   private final ExecutorService calls;
   private final DataWatcher watcher; // null when polling is off
+  private final DataWatcher searchWatcher; // likewise
   private final Engine engine;
 
-  private Service(Javalin http, ExecutorService calls, DataWatcher watcher, Engine engine) {
+  private Service(Javalin http, ExecutorService calls, DataWatcher watcher, DataWatcher searchWatcher, Engine engine) {
     this.http = http;
     this.calls = calls;
     this.watcher = watcher;
+    this.searchWatcher = searchWatcher;
     this.engine = engine;
   }
 
@@ -72,6 +74,11 @@ public final class Service implements AutoCloseable {
         .description("Fact reloads applied").tag("result", "applied").register(metrics);
     FunctionCounter.builder("reckoner.facts.reloads", engine.facts(), f -> f.reloadFailures())
         .description("Fact reloads refused (a bad file; the old data kept serving)").tag("result", "refused").register(metrics);
+    FunctionCounter.builder("reckoner.search.reloads", engine.search(), s -> s.reloadSuccesses())
+        .description("Search collection reloads applied").tag("result", "applied").register(metrics);
+    FunctionCounter.builder("reckoner.search.reloads", engine.search(), s -> s.reloadFailures())
+        .description("Search collection reloads refused (a bad file; the old collections kept serving)").tag("result", "refused")
+        .register(metrics);
     LedgerWriter w = engine.writer();
     Gauge.builder("reckoner.ledger.queue.depth", w, LedgerWriter::queueDepth).description("Invocations waiting to be committed")
         .register(metrics);
@@ -86,9 +93,12 @@ public final class Service implements AutoCloseable {
     DataWatcher watcher = config.factsPollMillis() > 0
         ? DataWatcher.over(engine.facts().data(), java.time.Duration.ofMillis(config.factsPollMillis())).start()
         : null;
+    DataWatcher searchWatcher = config.searchPollMillis() > 0
+        ? DataWatcher.over(engine.search().data(), java.time.Duration.ofMillis(config.searchPollMillis())).start()
+        : null;
 
     HttpApi.Settings settings = new HttpApi.Settings(config.maxBodyBytes(), config.maxBatchBytes(), engine.markup(),
-        OpenApi.assemble(catalog, json, VERSION), engine::isReady, calls, engine.facts(), engine.ledger());
+        OpenApi.assemble(catalog, json, VERSION), engine::isReady, calls, engine.facts(), engine.ledger(), engine.search());
     Javalin http = HttpApi.create(engine.invoker(), metrics, json, settings);
     http.start(config.host(), config.port());
     LOG.info("serving {} tool versions on http://{}:{} (data dir {})", catalog.all().size(), config.host(), http.port(),
@@ -98,7 +108,7 @@ public final class Service implements AutoCloseable {
     } else {
       LOG.info("no API keys configured: listening on loopback only");
     }
-    return new Service(http, calls, watcher, engine);
+    return new Service(http, calls, watcher, searchWatcher, engine);
   }
 
   static java.util.concurrent.ThreadFactory daemonThreads(String prefix) {
@@ -119,6 +129,9 @@ public final class Service implements AutoCloseable {
   public void close() {
     if (watcher != null) {
       watcher.close();
+    }
+    if (searchWatcher != null) {
+      searchWatcher.close();
     }
     http.stop(); // no new calls; calls in flight finish
     calls.shutdown();

@@ -47,13 +47,20 @@ import java.util.TreeSet;
  * @param retentionDays records older than this many days are deleted (0: kept)
  * @param retentionMaxRecords the oldest records beyond this count are deleted (0: no limit)
  * @param retentionMaxBytes the oldest records are deleted while the ledger's records take more bytes than this (0: no limit)
+ * @param searchDirs more directories of search collection files, beside {@code <data dir>/search}
+ * @param searchDemo whether the shipped demo collection is served too
+ * @param searchDefaultCollection the collection a search call without {@code collection} reads
+ * @param searchPollMillis how often collection files are checked for changes (0: only on an admin reload)
+ * @param searchIndexDir where on-disk indexes live (empty: {@code <data dir>/search-index})
+ * @param searchMemoryChars collections of at most this many characters are indexed in memory, larger ones on disk
  */
 public record ServiceConfig(String host, int port, Path dataDir, long maxBodyBytes, boolean openAccess,
     long maxBatchBytes, long cacheSize, int callThreads, String markupOpen, String markupSeparator, String markupClose,
     List<Path> factsDirs, boolean factsDemo, String factsDefaultSet, long factsPollMillis,
     String ledger, String ledgerUrl, String ledgerUser, String ledgerPassword, int ledgerPoolSize, boolean ledgerSync,
     String durability, int ledgerQueue, long retentionDays, long retentionMaxRecords,
-    long retentionMaxBytes) {
+    long retentionMaxBytes, List<Path> searchDirs, boolean searchDemo, String searchDefaultCollection,
+    long searchPollMillis, String searchIndexDir, long searchMemoryChars) {
   /** Every setting with its default. The README's settings table lists the same. */
   public static final Map<String, String> DEFAULTS = defaults();
 
@@ -90,6 +97,10 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
       throw new ConfigException("ledger-pool-size and ledger-queue must be positive, retention-days, "
           + "retention-max-records and retention-max-bytes not negative");
     }
+    searchDirs = List.copyOf(searchDirs);
+    if (searchPollMillis < 0 || searchMemoryChars < 0) {
+      throw new ConfigException("search-poll-ms and search-memory-chars must not be negative");
+    }
     if (!openAccess && !isLoopback(host)) {
       throw new ConfigException("refusing to listen on " + host + " without API keys: use a loopback host "
           + "(127.0.0.1), or set open-access=true to serve every caller who can reach it");
@@ -124,6 +135,12 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     d.put("retention-days", "0");
     d.put("retention-max-records", "0");
     d.put("retention-max-bytes", "0");
+    d.put("search-dirs", "");
+    d.put("search-demo", "true");
+    d.put("search-default-collection", "demo");
+    d.put("search-poll-ms", "2000");
+    d.put("search-index-dir", "");
+    d.put("search-memory-chars", "16000000");
     return java.util.Collections.unmodifiableMap(d);
   }
 
@@ -162,7 +179,13 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
         integer(s, "ledger-queue"),
         longValue(s, "retention-days"),
         longValue(s, "retention-max-records"),
-        byteSize(s, "retention-max-bytes"));
+        byteSize(s, "retention-max-bytes"),
+        paths(s.get("search-dirs")),
+        bool(s, "search-demo"),
+        s.get("search-default-collection").trim(),
+        longValue(s, "search-poll-ms"),
+        s.get("search-index-dir").trim(),
+        longValue(s, "search-memory-chars"));
   }
 
   /**
@@ -182,6 +205,11 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     }
     merged.putAll(flags);
     return merged;
+  }
+
+  /** Where on-disk search indexes live: {@code search-index-dir}, or {@code <data dir>/search-index}. */
+  public Path searchIndexPath() {
+    return searchIndexDir.isEmpty() ? dataDir.resolve("search-index") : Path.of(searchIndexDir);
   }
 
   /** {@code data-dir} is read from {@code RECKONER_DATA_DIR}. */

@@ -13,6 +13,7 @@ import org.slf4j.LoggerFactory;
 import reckoner.call.Invoker;
 import reckoner.facts.FactStore;
 import reckoner.ledger.LedgerStore;
+import reckoner.search.SearchStore;
 import reckoner.splice.Filler;
 import reckoner.splice.Markup;
 import reckoner.tool.ErrorCode;
@@ -29,7 +30,7 @@ public final class HttpApi {
 
   /** What the routes need, made by {@code Main}. */
   public record Settings(long maxBodyBytes, long maxBatchBytes, Markup markup, ObjectNode openApi, BooleanSupplier ready,
-      ExecutorService callExecutor, FactStore facts, LedgerStore ledger) {}
+      ExecutorService callExecutor, FactStore facts, LedgerStore ledger, SearchStore search) {}
 
   private HttpApi() {}
 
@@ -42,6 +43,7 @@ public final class HttpApi {
         settings.callExecutor());
     FactsRoutes facts = new FactsRoutes(settings.facts(), responses);
     LedgerRoutes ledger = new LedgerRoutes(settings.ledger(), responses);
+    SearchRoutes search = new SearchRoutes(settings.search(), responses);
     StatusPage status = new StatusPage(callMetrics, responses, java.time.Clock.systemUTC());
     SpliceRoutes splice = new SpliceRoutes(new Filler(invoker), responses, callMetrics, new Bodies(settings.maxBatchBytes()),
         settings.markup());
@@ -69,6 +71,8 @@ public final class HttpApi {
       config.routes.get("/status", status::show);
       config.routes.get("/v1/admin/facts", facts::show);
       config.routes.post("/v1/admin/facts/reload", facts::reload);
+      config.routes.get("/v1/admin/search", search::show);
+      config.routes.post("/v1/admin/search/reload", search::reload);
       config.routes.get("/problems/{code}", ctx -> problemType(ctx, responses));
 
       config.routes.exception(ApiException.class, (e, ctx) -> responses.problem(ctx, e.error(), e.headers()));
