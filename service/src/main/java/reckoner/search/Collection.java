@@ -114,7 +114,7 @@ final class Collection implements Dataset {
   /** The {@code n} best passages, best first, ties by document id and position. */
   List<Hit> top(List<String> terms, Optional<LocalDate> asOf, int n) {
     BooleanQuery.Builder query = new BooleanQuery.Builder();
-    for (String term : terms) {
+    for (String term : new java.util.LinkedHashSet<>(terms)) { // each distinct term once
       query.add(new TermQuery(new Term(SearchFields.BODY, term)), BooleanClause.Occur.SHOULD);
     }
     asOf.ifPresent(d -> query.add(IntPoint.newRangeQuery(SearchFields.DAY, Integer.MIN_VALUE, Math.toIntExact(d.toEpochDay())),
