@@ -31,7 +31,7 @@ import reckoner.tool.Tool;
  * run.sh). Modes:
  *
  * <pre>
- *   generate FILE PASSAGES        writes a collection "bench" of about PASSAGES passages (4 a document)
+ *   generate FILE PASSAGES        writes a collection "bench" of PASSAGES passages (4 a document)
  *   inproc DIR INDEXDIR QUERIES   loads DIR (index on disk under INDEXDIR), reports load time, then
  *                                 times QUERIES searches against arith@1 "1+1" in the same run
  *   http URL QUERIES THREADS      times QUERIES search calls and as many arith@1 calls over HTTP
@@ -83,7 +83,9 @@ public final class SearchBenchmark {
       w.write("{\"collection\":\"bench\",\"options\":{\"language\":\"en\"}}\n");
       for (int d = 0; d < documents; d++) {
         StringBuilder text = new StringBuilder();
-        for (int p = 0; p < 4; p++) { // four passages: each a packed group of sentences just under 320 characters
+        for (int p = 0; p < 4; p++) {
+          // Four passages: each a group of sentences of 170 to 300 characters, so that the passage rule
+          // (pack while within 320) keeps every group as one passage and never joins two.
           int length = 0;
           StringBuilder passage = new StringBuilder();
           while (true) {
@@ -95,7 +97,10 @@ public final class SearchBenchmark {
             sentence.setCharAt(0, Character.toUpperCase(sentence.charAt(0)));
             sentence.append('.');
             if (length + sentence.length() + 1 > 300) {
-              break;
+              if (length >= 170) {
+                break;
+              }
+              continue; // too short to stand alone yet: try a shorter sentence
             }
             passage.append(length == 0 ? "" : " ").append(sentence);
             length = passage.length();
