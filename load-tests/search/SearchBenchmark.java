@@ -238,7 +238,7 @@ public final class SearchBenchmark {
   static String rss(String pid) throws Exception {
     StringBuilder sb = new StringBuilder();
     for (String line : Files.readAllLines(Path.of("/proc", pid, "status"))) {
-      if (line.startsWith("VmRSS:") || line.startsWith("VmHWM:")) {
+      if (line.startsWith("VmRSS:") || line.startsWith("VmHWM:") || line.startsWith("RssAnon:") || line.startsWith("RssFile:")) {
         sb.append(line.replaceAll("\\s+", " ")).append("; ");
       }
     }

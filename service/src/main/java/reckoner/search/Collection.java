@@ -117,8 +117,7 @@ final class Collection implements Dataset {
     for (String term : new java.util.LinkedHashSet<>(terms)) { // each distinct term once
       query.add(new TermQuery(new Term(SearchFields.BODY, term)), BooleanClause.Occur.SHOULD);
     }
-    asOf.ifPresent(d -> query.add(IntPoint.newRangeQuery(SearchFields.DAY, Integer.MIN_VALUE, Math.toIntExact(d.toEpochDay())),
-        BooleanClause.Occur.FILTER));
+    asOf.ifPresent(d -> query.add(IntPoint.newRangeQuery(SearchFields.DAY, Integer.MIN_VALUE, day(d)), BooleanClause.Occur.FILTER));
     try {
       TopDocs top = searcher.search(query.build(), n);
       StoredFields stored = searcher.storedFields();
@@ -132,6 +131,11 @@ final class Collection implements Dataset {
     } catch (IOException e) {
       throw new UncheckedIOException("the index of collection " + name + " could not be read", e);
     }
+  }
+
+  /** Days since 1970-01-01, clamped to an int: documents are dated within years 1 to 9999, far inside it. */
+  static int day(LocalDate date) {
+    return (int) Math.max(Integer.MIN_VALUE + 1L, Math.min(Integer.MAX_VALUE, date.toEpochDay()));
   }
 
   /** Takes the collection for one call; false if it was released meanwhile (read the snapshot again). */

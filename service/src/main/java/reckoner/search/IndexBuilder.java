@@ -51,7 +51,7 @@ final class IndexBuilder implements AutoCloseable {
     documents++;
     List<String> passages = Passages.of(doc.title(), doc.text());
     BytesRef id = new BytesRef(doc.id());
-    int day = doc.date() == null ? Integer.MIN_VALUE : Math.toIntExact(doc.date().toEpochDay());
+    int day = doc.date() == null ? Integer.MIN_VALUE : Collection.day(doc.date());
     for (int position = 0; position < passages.size(); position++) {
       Document d = new Document();
       d.add(new TextField(SearchFields.BODY, passages.get(position), Field.Store.NO));

@@ -210,14 +210,15 @@ final class SearchFormat implements DataFormat<Collection> {
     if (v == null) {
       return null;
     }
-    if (v instanceof String s) {
+    if (v instanceof String s && s.length() == 10) { // YYYY-MM-DD: years 0000 to 9999
       try {
         return LocalDate.parse(s, DateTimeFormatter.ISO_LOCAL_DATE);
       } catch (DateTimeParseException e) {
         // the message below
       }
     }
-    throw new DataLine.Problem("\"date\" must be an ISO 8601 calendar date such as 2031-05-17 but was " + DataLine.describe(v));
+    throw new DataLine.Problem("\"date\" must be an ISO 8601 calendar date YYYY-MM-DD such as 2031-05-17 but was "
+        + DataLine.describe(v));
   }
 
   /* ---------------- assembling: reuse, open or build ---------------- */
@@ -335,6 +336,9 @@ final class SearchFormat implements DataFormat<Collection> {
         }
         if (b.target != null) {
           b.directory.close();
+          if (Files.exists(b.target)) {
+            deleteTree(b.target); // an index of this version that could not be opened
+          }
           Files.move(b.work, b.target, StandardCopyOption.ATOMIC_MOVE);
           collections.put(b.name, openOnDisk(b.name, b.language, b.version, b.target));
         } else {

@@ -189,7 +189,7 @@ final class SearchStoreTest {
         "2: \"collection\" must be a name of lower-case letters, digits, '_' and '-' (at most 64, starting with a letter or digit) but was \"News\"",
         "3: \"author\" is not a document field; the fields are collection, id, title, text, url, date",
         "4: title contains the control character U+000A at position 4",
-        "5: \"date\" must be an ISO 8601 calendar date such as 2031-05-17 but was \"2030-02-30\"",
+        "5: \"date\" must be an ISO 8601 calendar date YYYY-MM-DD such as 2031-05-17 but was \"2030-02-30\"",
         "6: option language must be one of none, en, da, de, es, fi, fr, it, nl, no, pt, sv but was \"klingon\"",
         "7: id must not begin or end with white space",
         "8: text contains the control character U+0007 at position 2"),
