@@ -84,28 +84,16 @@ public final class SearchBenchmark {
       for (int d = 0; d < documents; d++) {
         StringBuilder text = new StringBuilder();
         for (int p = 0; p < 4; p++) {
-          // Four passages: each a group of sentences of 170 to 300 characters, so that the passage rule
-          // (pack while within 320) keeps every group as one passage and never joins two.
-          int length = 0;
-          StringBuilder passage = new StringBuilder();
-          while (true) {
-            StringBuilder sentence = new StringBuilder();
-            int n = 6 + r.nextInt(8);
-            for (int i = 0; i < n; i++) {
-              sentence.append(i == 0 ? "" : " ").append(word(r));
-            }
-            sentence.setCharAt(0, Character.toUpperCase(sentence.charAt(0)));
-            sentence.append('.');
-            if (length + sentence.length() + 1 > 300) {
-              if (length >= 170) {
-                break;
-              }
-              continue; // too short to stand alone yet: try a shorter sentence
-            }
-            passage.append(length == 0 ? "" : " ").append(sentence);
-            length = passage.length();
+          // Four passages: each one sentence of 170 to about 300 characters, so that the passage rule
+          // (pack sentences while within 320) never joins two of them and never splits one.
+          int target = 170 + r.nextInt(120);
+          StringBuilder sentence = new StringBuilder(word(r));
+          while (sentence.length() < target) {
+            sentence.append(' ').append(word(r));
           }
-          text.append(p == 0 ? "" : " ").append(passage);
+          sentence.setCharAt(0, Character.toUpperCase(sentence.charAt(0)));
+          sentence.append('.');
+          text.append(p == 0 ? "" : " ").append(sentence);
         }
         String date = d % 3 == 0 ? ",\"date\":\"" + (2000 + d % 30) + "-0" + (1 + d % 9) + "-1" + (d % 9) + "\"" : "";
         w.write(String.format(Locale.ROOT, "{\"collection\":\"bench\",\"id\":\"survey-%07d\",\"title\":\"Survey note %d %s\",\"text\":\"%s\"%s}%n",
