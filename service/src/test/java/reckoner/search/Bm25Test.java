@@ -1,6 +1,7 @@
 package reckoner.search;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -110,6 +111,15 @@ final class Bm25Test {
     }
     long matching = all.values().stream().filter(p -> words(query).stream().anyMatch(p::contains)).count();
     assertEquals(matching, hits.size(), "every passage holding a query word is a hit");
+  }
+
+  @Test
+  void lengthEncoding_isExactUpToFortyTerms_soTheComparisonNeedsNoRounding() {
+    for (int length = 0; length <= 40; length++) {
+      assertEquals(length, org.apache.lucene.util.SmallFloat.byte4ToInt(org.apache.lucene.util.SmallFloat.intToByte4(length)));
+    }
+    assertEquals(40, org.apache.lucene.util.SmallFloat.byte4ToInt(org.apache.lucene.util.SmallFloat.intToByte4(41)));
+    assertTrue(passages().values().stream().allMatch(p -> p.size() <= 40));
   }
 
   /* ---------------- rankings worked out by hand ---------------- */
