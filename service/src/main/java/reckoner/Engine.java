@@ -18,9 +18,10 @@ import reckoner.ledger.LedgerWriter;
 import reckoner.ledger.Retention;
 import reckoner.config.ConfigException;
 import reckoner.config.ServiceConfig;
-import reckoner.facts.FactLoadException;
-import reckoner.facts.FactSource;
+import reckoner.data.DataLoadException;
+import reckoner.data.DataSource;
 import reckoner.facts.FactStore;
+import reckoner.search.SearchStore;
 import reckoner.spec.SpecLoader;
 import reckoner.spec.ToolCatalog;
 import reckoner.splice.Markup;
@@ -32,9 +33,10 @@ import tools.jackson.databind.json.JsonMapper;
  * their specs, the fact store, the answer cache, the invoker and the configured markup. Wiring only.
  */
 record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup markup, FactStore facts,
-    LedgerStore ledger, LedgerWriter writer, Retention retention) implements AutoCloseable {
+    SearchStore search, LedgerStore ledger, LedgerWriter writer, Retention retention) implements AutoCloseable {
   static Engine build(ServiceConfig config, Clock clock, JsonMapper json, LedgerStats.CommitListener commits) {
     FactStore facts = openFacts(config);
+    SearchStore search = openSearch(config);
     LedgerStore ledger = openLedger(config);
     LedgerWriter writer = LedgerWriter.start(ledger, LedgerWriter.Settings.defaults().withQueueCapacity(config.ledgerQueue()),
         commits);
@@ -43,7 +45,7 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
     Retention retention = policy.keepsAll() ? null : Retention.start(ledger, policy, clock, Duration.ofMinutes(1));
     InvocationSink sink = new LedgerSink(writer,
         LedgerSink.Durability.parse(config.durability()).orElseThrow(() -> new ConfigException("durability: " + config.durability())));
-    ToolCatalog catalog = ToolCatalog.of(ToolRegistry.of(Tools.standard(facts)), new SpecLoader(json));
+    ToolCatalog catalog = ToolCatalog.of(ToolRegistry.of(Tools.standard(facts, search)), new SpecLoader(json));
     AnswerCache cache = AnswerCache.ofMaximumSize(config.cacheSize());
     Markup markup;
     try {
@@ -55,7 +57,7 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
     ledger.newestBeyond(0).ifPresent(newest -> ids.startAfter(UUID.fromString(newest))); // ids keep rising across restarts
     Invoker.Limits limits = new Invoker.Limits(config.bounds().maxArgumentChars(),
         java.util.concurrent.TimeUnit.MILLISECONDS.toNanos(config.bounds().callDeadlineMillis()));
-    return new Engine(catalog, cache, new Invoker(catalog, clock, ids, cache, sink, limits), markup, facts, ledger, writer,
+    return new Engine(catalog, cache, new Invoker(catalog, clock, ids, cache, sink, limits), markup, facts, search, ledger, writer,
         retention);
   }
 
@@ -90,6 +92,7 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
     }
     writer.close();
     ledger.close();
+    search.close();
   }
 
   /**
@@ -97,9 +100,9 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
    * {@code facts-dirs} entry (which must exist). A bad file stops the start, naming file and line.
    */
   static FactStore openFacts(ServiceConfig config) {
-    List<FactSource> sources = new ArrayList<>();
+    List<DataSource> sources = new ArrayList<>();
     if (config.factsDemo()) {
-      sources.add(FactSource.demo());
+      sources.add(FactStore.demo());
     }
     Path own = config.dataDir().resolve("facts");
     try {
@@ -107,19 +110,53 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
     } catch (java.io.IOException e) {
       throw new ConfigException("data-dir: cannot create " + own + ": " + e.getMessage());
     }
-    sources.add(FactSource.directory(own));
+    sources.add(DataSource.directory(own));
     for (Path dir : config.factsDirs()) {
       if (!Files.isDirectory(dir)) {
         throw new ConfigException("facts-dirs: no such directory: " + dir);
       }
-      sources.add(FactSource.directory(dir));
+      sources.add(DataSource.directory(dir));
     }
     try {
       return FactStore.open(sources, config.factsDefaultSet()); // the store logs each load itself
-    } catch (FactLoadException e) {
+    } catch (DataLoadException e) {
       throw new ConfigException("fact files could not be loaded: " + e.getMessage());
     } catch (IllegalArgumentException e) {
       throw new ConfigException("facts-default-set: " + e.getMessage());
+    }
+  }
+
+  /**
+   * The search collections: the demo (unless turned off), {@code <data dir>/search} (created if
+   * missing), and every {@code search-dirs} entry (which must exist); on-disk indexes under {@link
+   * ServiceConfig#searchIndexPath()}. A bad file stops the start, naming file and line.
+   */
+  static SearchStore openSearch(ServiceConfig config) {
+    List<DataSource> sources = new ArrayList<>();
+    if (config.searchDemo()) {
+      sources.add(SearchStore.demo());
+    }
+    Path own = config.dataDir().resolve("search");
+    try {
+      Files.createDirectories(own); // always a source, so files dropped in later load on reload
+    } catch (java.io.IOException e) {
+      throw new ConfigException("data-dir: cannot create " + own + ": " + e.getMessage());
+    }
+    sources.add(DataSource.directory(own));
+    for (Path dir : config.searchDirs()) {
+      if (!Files.isDirectory(dir)) {
+        throw new ConfigException("search-dirs: no such directory: " + dir);
+      }
+      sources.add(DataSource.directory(dir));
+    }
+    SearchStore.Settings settings = new SearchStore.Settings(java.util.Optional.of(config.searchIndexPath()),
+        config.searchMemoryChars());
+    try {
+      return SearchStore.open(sources, config.searchDefaultCollection(), settings, reckoner.data.ReloadListener.none());
+    } catch (DataLoadException e) {
+      throw new ConfigException("search collection files could not be loaded: " + e.getMessage());
+    } catch (IllegalArgumentException e) {
+      throw new ConfigException("search-default-collection: " + e.getMessage());
     }
   }
 

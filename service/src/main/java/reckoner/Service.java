@@ -24,7 +24,7 @@ import reckoner.access.RateLimits;
 import reckoner.access.StreamLimits;
 import reckoner.config.ConfigException;
 import reckoner.config.ServiceConfig;
-import reckoner.facts.FactsWatcher;
+import reckoner.data.DataWatcher;
 import reckoner.ledger.LedgerWriter;
 import reckoner.http.HttpApi;
 import reckoner.spec.Json;
@@ -43,16 +43,18 @@ public final class Service implements AutoCloseable {
 
   private final Javalin http;
   private final ExecutorService calls;
-  private final FactsWatcher watcher; // null when polling is off
+  private final DataWatcher watcher; // null when polling is off
+  private final DataWatcher searchWatcher; // likewise
   private final Engine engine;
   private final KeyStore keys; // null: no keys file
   private final java.util.List<HttpApi.RouteInfo> routes;
 
-  private Service(Javalin http, ExecutorService calls, FactsWatcher watcher, Engine engine, KeyStore keys,
-      java.util.List<HttpApi.RouteInfo> routes) {
+  private Service(Javalin http, ExecutorService calls, DataWatcher watcher, DataWatcher searchWatcher, Engine engine,
+      KeyStore keys, java.util.List<HttpApi.RouteInfo> routes) {
     this.http = http;
     this.calls = calls;
     this.watcher = watcher;
+    this.searchWatcher = searchWatcher;
     this.engine = engine;
     this.keys = keys;
     this.routes = routes;
@@ -101,6 +103,11 @@ public final class Service implements AutoCloseable {
         .description("Fact reloads applied").tag("result", "applied").register(metrics);
     FunctionCounter.builder("reckoner.facts.reloads", engine.facts(), f -> f.reloadFailures())
         .description("Fact reloads refused (a bad file; the old data kept serving)").tag("result", "refused").register(metrics);
+    FunctionCounter.builder("reckoner.search.reloads", engine.search(), s -> s.reloadSuccesses())
+        .description("Search collection reloads applied").tag("result", "applied").register(metrics);
+    FunctionCounter.builder("reckoner.search.reloads", engine.search(), s -> s.reloadFailures())
+        .description("Search collection reloads refused (a bad file; the old collections kept serving)").tag("result", "refused")
+        .register(metrics);
     LedgerWriter w = engine.writer();
     Gauge.builder("reckoner.ledger.queue.depth", w, LedgerWriter::queueDepth).description("Invocations waiting to be committed")
         .register(metrics);
@@ -112,12 +119,15 @@ public final class Service implements AutoCloseable {
         .description("Ledger write attempts that failed").register(metrics);
     FunctionCounter.builder("reckoner.ledger.records.refused", w, LedgerWriter::recordsRefused)
         .description("Invocations refused (queue full, store down, closed); their calls were answered 503").register(metrics);
-    FactsWatcher watcher = config.factsPollMillis() > 0
-        ? FactsWatcher.over(engine.facts(), java.time.Duration.ofMillis(config.factsPollMillis())).start()
+    DataWatcher watcher = config.factsPollMillis() > 0
+        ? DataWatcher.over(engine.facts().data(), java.time.Duration.ofMillis(config.factsPollMillis())).start()
+        : null;
+    DataWatcher searchWatcher = config.searchPollMillis() > 0
+        ? DataWatcher.over(engine.search().data(), java.time.Duration.ofMillis(config.searchPollMillis())).start()
         : null;
 
     HttpApi.Settings settings = new HttpApi.Settings(config.maxBodyBytes(), config.maxBatchBytes(), engine.markup(),
-        OpenApi.assemble(catalog, json, VERSION), engine::isReady, calls, engine.facts(), engine.ledger(), keys,
+        OpenApi.assemble(catalog, json, VERSION), engine::isReady, calls, engine.facts(), engine.ledger(), engine.search(), keys,
         new RateLimits(config.access().rateBurstSeconds()), new StreamLimits(config.access().maxStreamsPerKey()),
         config.bounds());
     HttpApi.Built built = HttpApi.create(engine.invoker(), metrics, json, settings);
@@ -145,7 +155,7 @@ public final class Service implements AutoCloseable {
     } else {
       LOG.info("no API keys configured: listening on loopback only");
     }
-    return new Service(http, calls, watcher, engine, keys, built.routes());
+    return new Service(http, calls, watcher, searchWatcher, engine, keys, built.routes());
   }
 
   /** Fails with one line naming the address when it cannot be bound (in use, not an address of this host). */
@@ -190,6 +200,9 @@ public final class Service implements AutoCloseable {
   public void close() {
     if (watcher != null) {
       watcher.close();
+    }
+    if (searchWatcher != null) {
+      searchWatcher.close();
     }
     if (keys != null) {
       keys.close();

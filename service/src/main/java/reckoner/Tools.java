@@ -4,10 +4,11 @@ import java.util.List;
 import reckoner.arith.ArithTool;
 import reckoner.dates.DatesTool;
 import reckoner.dates.DatesToolV2;
-import reckoner.facts.FactLoadException;
-import reckoner.facts.FactSource;
+import reckoner.data.DataLoadException;
 import reckoner.facts.FactStore;
 import reckoner.facts.FactsTool;
+import reckoner.search.SearchStore;
+import reckoner.search.SearchTool;
 import reckoner.tool.Tool;
 import reckoner.units.UnitsTool;
 
@@ -15,21 +16,22 @@ import reckoner.units.UnitsTool;
 public final class Tools {
   private Tools() {}
 
-  /** Every served tool version; fact lookups read {@code facts}. */
-  public static List<Tool> standard(FactStore facts) {
+  /** Every served tool version; fact lookups read {@code facts}, searches {@code search}. */
+  public static List<Tool> standard(FactStore facts, SearchStore search) {
     return List.of(
         new ArithTool(),
         new DatesTool(),
         new DatesToolV2(),
         new UnitsTool(),
-        new FactsTool(facts));
+        new FactsTool(facts),
+        new SearchTool(search));
   }
 
-  /** The standard tools over the demo fact sets only: for tests, benchmarks and examples. */
+  /** The standard tools over the demo fact sets and the demo collection only: for tests, benchmarks and examples. */
   public static List<Tool> demo() {
     try {
-      return standard(FactStore.open(List.of(FactSource.demo()), FactSource.DEMO_DEFAULT_SET));
-    } catch (FactLoadException e) {
+      return standard(FactStore.open(List.of(FactStore.demo()), FactStore.DEMO_DEFAULT_SET), SearchStore.openDemo());
+    } catch (DataLoadException e) {
       throw new IllegalStateException("the demo fact sets do not load: " + e.getMessage(), e);
     }
   }

@@ -60,6 +60,12 @@ final class SettingsTest {
     trial("retention-days", "30");
     trial("retention-max-records", "1000000");
     trial("retention-max-bytes", "123456789");
+    trial("search-dirs", "trial-collections");
+    trial("search-demo", "false", "search-default-collection", "mine");
+    trial("search-default-collection", "other");
+    trial("search-poll-ms", "750");
+    trial("search-index-dir", "trial-index");
+    trial("search-memory-chars", "1000");
     trial("keys-file", "trial-keys.jsonl", "host", "0.0.0.0");
     trial("keys-poll-ms", "500");
     trial("rate-burst-seconds", "2.5");

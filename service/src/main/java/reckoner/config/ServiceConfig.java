@@ -47,6 +47,12 @@ import java.util.TreeSet;
  * @param retentionDays records older than this many days are deleted (0: kept)
  * @param retentionMaxRecords the oldest records beyond this count are deleted (0: no limit)
  * @param retentionMaxBytes the oldest records are deleted while the ledger's records take more bytes than this (0: no limit)
+ * @param searchDirs more directories of search collection files, beside {@code <data dir>/search}
+ * @param searchDemo whether the shipped demo collection is served too
+ * @param searchDefaultCollection the collection a search call without {@code collection} reads
+ * @param searchPollMillis how often collection files are checked for changes (0: only on an admin reload)
+ * @param searchIndexDir where on-disk indexes live (empty: {@code <data dir>/search-index})
+ * @param searchMemoryChars collections of at most this many characters are indexed in memory, larger ones on disk
  * @param access API keys and their limits
  * @param bounds the bounds on each request's work
  */
@@ -55,7 +61,8 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     List<Path> factsDirs, boolean factsDemo, String factsDefaultSet, long factsPollMillis,
     String ledger, String ledgerUrl, String ledgerUser, String ledgerPassword, int ledgerPoolSize, boolean ledgerSync,
     String durability, int ledgerQueue, long retentionDays, long retentionMaxRecords,
-    long retentionMaxBytes, Access access, Bounds bounds) {
+    long retentionMaxBytes, List<Path> searchDirs, boolean searchDemo, String searchDefaultCollection,
+    long searchPollMillis, String searchIndexDir, long searchMemoryChars, Access access, Bounds bounds) {
 
   /**
    * API keys: the keys file (null: none, and the server listens on loopback only), how often it is
@@ -136,6 +143,10 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
       throw new ConfigException("ledger-pool-size and ledger-queue must be positive, retention-days, "
           + "retention-max-records and retention-max-bytes not negative");
     }
+    searchDirs = List.copyOf(searchDirs);
+    if (searchPollMillis < 0 || searchMemoryChars < 0) {
+      throw new ConfigException("search-poll-ms and search-memory-chars must not be negative");
+    }
     java.util.Objects.requireNonNull(access, "access");
     java.util.Objects.requireNonNull(bounds, "bounds");
     if (!openAccess && access.keysFile() == null && !isLoopback(host)) {
@@ -183,6 +194,14 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
       new Setting("retention-max-records", "0", false, "Delete the oldest records beyond this count (0: keep)."),
       new Setting("retention-max-bytes", "0", false,
           "Delete the oldest records while the rest take more than this (500MB, 2GiB; 0: keep)."),
+      new Setting("search-dirs", "", false,
+          "More directories of search collection files, comma-separated (flag --search-dir, repeatable)."),
+      new Setting("search-demo", "true", false, "Serve the shipped demo collection demo."),
+      new Setting("search-default-collection", "demo", false, "The collection a search call without collection reads."),
+      new Setting("search-poll-ms", "2000", false, "How often collection files are checked for changes; 0: only on an admin reload."),
+      new Setting("search-index-dir", "", false, "Where on-disk indexes live (none: <data dir>/search-index)."),
+      new Setting("search-memory-chars", "16000000", false,
+          "Collections of at most this many characters are indexed in memory; larger ones on disk, memory-mapped."),
       new Setting("keys-file", "", true, "The API keys (JSON Lines; see Access). None: no keys, and loopback only."),
       new Setting("keys-poll-ms", "2000", true, "How often the keys file is checked for changes; 0: read at start only."),
       new Setting("rate-burst-seconds", "1", true, "How many seconds of its rate_per_s a key may spend at once."),
@@ -200,6 +219,11 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     Map<String, String> d = new LinkedHashMap<>();
     SETTINGS.forEach(setting -> d.put(setting.name(), setting.defaultValue()));
     return java.util.Collections.unmodifiableMap(d);
+  }
+
+  /** Where on-disk search indexes live: {@code search-index-dir}, or {@code <data dir>/search-index}. */
+  public Path searchIndexPath() {
+    return searchIndexDir.isEmpty() ? dataDir.resolve("search-index") : Path.of(searchIndexDir);
   }
 
   /** Builds the config from settings keyed by their names; unknown names and bad values fail, naming the setting. */
@@ -238,6 +262,12 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
         longValue(s, "retention-days"),
         longValue(s, "retention-max-records"),
         byteSize(s, "retention-max-bytes"),
+        paths(s.get("search-dirs")),
+        bool(s, "search-demo"),
+        s.get("search-default-collection").trim(),
+        longValue(s, "search-poll-ms"),
+        s.get("search-index-dir").trim(),
+        longValue(s, "search-memory-chars"),
         new Access(s.get("keys-file").isBlank() ? null : Path.of(s.get("keys-file").trim()), longValue(s, "keys-poll-ms"),
             decimal(s, "rate-burst-seconds"), integer(s, "max-streams-per-key")),
         new Bounds(integer(s, "max-batch-calls"), integer(s, "max-argument-chars"), longValue(s, "call-deadline-ms"),

@@ -5,12 +5,13 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import reckoner.data.Dataset;
 
 /**
  * One loaded fact set: its name, whether it folds accents, its content digest, and an index from
  * every normalised name (key or alias) to the key's facts in load order. Immutable; thread-safe.
  */
-final class FactSet {
+final class FactSet implements Dataset {
   /** A key with its facts, in load order. */
   static final class Entry {
     private final String shown;
@@ -108,11 +109,14 @@ final class FactSet {
   }
 
   /** The content digest, {@code sha256:} and 16 hex digits. */
-  String version() {
+  @Override
+  public String version() {
     return version;
   }
 
-  int factCount() {
+  /** How many facts the set holds. */
+  @Override
+  public int records() {
     return factCount;
   }
 

@@ -1,15 +1,13 @@
 package reckoner.facts;
 
-import java.nio.charset.StandardCharsets;
-import java.security.MessageDigest;
-import java.security.NoSuchAlgorithmException;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashMap;
-import java.util.HexFormat;
 import java.util.List;
 import java.util.Map;
+import reckoner.data.ContentDigest;
+import reckoner.data.DataFormat.ProblemSink;
 
 /**
  * Indexes one set's raw facts, in load order, and computes its data version. Problems found here
@@ -17,11 +15,6 @@ import java.util.Map;
  * file and line of the fact that caused them. Single use; not thread-safe.
  */
 final class FactSetBuilder {
-  /** Reports a problem at a file and line. */
-  interface ProblemSink {
-    void add(String file, int line, String reason);
-  }
-
   private final String name;
   private final boolean foldAccents;
   private final ProblemSink problems;
@@ -39,9 +32,9 @@ final class FactSetBuilder {
     final String key;
     final String shown;
     private Fact first;
-    private FactFileReader.RawFact firstOrigin;
+    private FactsFormat.RawFact firstOrigin;
     private List<Fact> more;
-    private List<FactFileReader.RawFact> moreOrigins;
+    private List<FactsFormat.RawFact> moreOrigins;
 
     EntryBuilder(int number, String key, String shown) {
       this.number = number;
@@ -57,11 +50,11 @@ final class FactSetBuilder {
       return i == 0 ? first : more.get(i - 1);
     }
 
-    FactFileReader.RawFact origin(int i) {
+    FactsFormat.RawFact origin(int i) {
       return i == 0 ? firstOrigin : moreOrigins.get(i - 1);
     }
 
-    void add(Fact fact, FactFileReader.RawFact origin) {
+    void add(Fact fact, FactsFormat.RawFact origin) {
       if (first == null) {
         first = fact;
         firstOrigin = origin;
@@ -98,24 +91,21 @@ final class FactSetBuilder {
   }
 
   /** Indexes {@code facts}; returns the set, whose use the caller skips if any problem was reported. */
-  FactSet build(List<FactFileReader.RawFact> facts) {
-    MessageDigest digest = sha256();
-    put(digest, "reckoner-facts/1");
-    put(digest, name);
-    put(digest, foldAccents ? "fold_accents" : "exact");
-    for (FactFileReader.RawFact f : facts) {
+  FactSet build(List<FactsFormat.RawFact> facts) {
+    ContentDigest digest = ContentDigest.of("reckoner-facts/1").put(name).put(foldAccents ? "fold_accents" : "exact");
+    for (FactsFormat.RawFact f : facts) {
       digestFact(digest, f);
       add(f);
     }
     index.replaceAll((n, e) -> ((EntryBuilder) e).built()); // names of one key share its entry
     @SuppressWarnings("unchecked") // every value is an Entry now
     Map<String, FactSet.Entry> byName = (Map<String, FactSet.Entry>) (Map<String, ?>) index;
-    String version = "sha256:" + HexFormat.of().formatHex(digest.digest(), 0, 8);
+    String version = digest.version();
     return new FactSet(name, foldAccents, version, facts.size(), byName,
         new NearestKeys(names, shown, Arrays.copyOf(nameOwners, names.size())));
   }
 
-  private void add(FactFileReader.RawFact f) {
+  private void add(FactsFormat.RawFact f) {
     String k = KeyNormalizer.normalize(f.key(), foldAccents);
     if (k.isEmpty()) {
       problems.add(f.file(), f.line(), "key \"" + TextRules.echo(f.key()) + "\" is empty after normalisation");
@@ -135,7 +125,7 @@ final class FactSetBuilder {
     Fact fact = new Fact(f.value(), f.from(), f.to());
     for (int i = 0; i < entry.size(); i++) {
       if (entry.fact(i).equals(fact)) {
-        FactFileReader.RawFact first = entry.origin(i);
+        FactsFormat.RawFact first = entry.origin(i);
         problems.add(f.file(), f.line(), "repeats the fact at " + first.file() + ":" + first.line());
         return;
       }
@@ -150,7 +140,7 @@ final class FactSetBuilder {
     return entry;
   }
 
-  private void addAlias(FactFileReader.RawFact f, String alias, EntryBuilder owner) {
+  private void addAlias(FactsFormat.RawFact f, String alias, EntryBuilder owner) {
     String n = KeyNormalizer.normalize(alias, foldAccents);
     if (n.isEmpty()) {
       problems.add(f.file(), f.line(), "alias \"" + TextRules.echo(alias) + "\" is empty after normalisation");
@@ -178,48 +168,20 @@ final class FactSetBuilder {
     if (e.size() == 0) {
       return "an earlier line";
     }
-    FactFileReader.RawFact first = e.origin(0);
+    FactsFormat.RawFact first = e.origin(0);
     return first.file() + ":" + first.line();
   }
 
-  /** Every field, length-prefixed, so that no two different fact lists give the same bytes. */
-  private static void digestFact(MessageDigest digest, FactFileReader.RawFact f) {
-    put(digest, f.key());
-    put(digest, f.value());
-    put(digest, Integer.toString(f.aliases().size())); // then that many alias fields
+  /** Every field, length-prefixed (see {@link ContentDigest}), so that no two different fact lists give the same bytes. */
+  private static void digestFact(ContentDigest digest, FactsFormat.RawFact f) {
+    digest.put(f.key()).put(f.value()).put(Integer.toString(f.aliases().size())); // then that many alias fields
     for (String a : f.aliases()) {
-      put(digest, a);
+      digest.put(a);
     }
-    put(digest, date(f.from()));
-    put(digest, date(f.to()));
-    put(digest, f.source());
+    digest.put(date(f.from())).put(date(f.to())).put(f.source());
   }
 
   private static String date(LocalDate d) {
     return d == null ? null : d.toString();
-  }
-
-  /**
-   * A field: its UTF-8 length as 4 bytes big-endian, then its bytes; an absent field is the length
-   * FF FF FF FF with no bytes.
-   */
-  private static void put(MessageDigest digest, String s) {
-    byte[] bytes = s == null ? null : s.getBytes(StandardCharsets.UTF_8);
-    int length = bytes == null ? -1 : bytes.length;
-    digest.update((byte) (length >>> 24));
-    digest.update((byte) (length >>> 16));
-    digest.update((byte) (length >>> 8));
-    digest.update((byte) length);
-    if (bytes != null) {
-      digest.update(bytes);
-    }
-  }
-
-  private static MessageDigest sha256() {
-    try {
-      return MessageDigest.getInstance("SHA-256");
-    } catch (NoSuchAlgorithmException e) {
-      throw new AssertionError("every Java platform has SHA-256", e); // Java SE requires it
-    }
   }
 }

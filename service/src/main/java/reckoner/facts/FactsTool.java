@@ -12,6 +12,7 @@ import java.util.Objects;
 import java.util.Optional;
 import java.util.Set;
 import org.apache.commons.text.similarity.LevenshteinDistance;
+import reckoner.data.DataSnapshot;
 import reckoner.tool.Answer;
 import reckoner.tool.Arguments;
 import reckoner.tool.CallContext;
@@ -91,8 +92,8 @@ public final class FactsTool implements Tool {
     Optional<LocalDate> asOf = canonical.string(AS_OF).isPresent()
         ? Optional.of(parseAsOf(canonical.requireString(AS_OF)))
         : Optional.empty();
-    Snapshot snapshot = store.snapshot(); // read once: the whole call sees one version
-    FactSet set = snapshot.set(setName).orElseThrow(() -> unknownSet(setName, snapshot));
+    DataSnapshot<FactSet> snapshot = store.snapshot(); // read once: the whole call sees one version
+    FactSet set = snapshot.get(setName).orElseThrow(() -> unknownSet(setName, snapshot));
     String probe = set.probe(key);
     FactSet.Entry entry = set.find(probe).orElseThrow(() -> new ToolException(new ToolError(ErrorCode.NOT_FOUND,
         "no fact '" + TextRules.echo(key) + "' in set '" + setName + "'", set.suggestionsFor(probe))));
@@ -157,7 +158,7 @@ public final class FactsTool implements Tool {
   }
 
   private static String setName(String name) throws ToolException {
-    if (!FactFileReader.SET_NAME.matcher(name).matches()) {
+    if (!FactsFormat.SET_NAME.matcher(name).matches()) {
       throw invalid("set must be a name of lower-case letters, digits, '_' and '-' (at most 64) but was '"
           + TextRules.echo(name) + "'");
     }
@@ -198,10 +199,10 @@ public final class FactsTool implements Tool {
     return true;
   }
 
-  private static ToolException unknownSet(String name, Snapshot snapshot) {
+  private static ToolException unknownSet(String name, DataSnapshot<FactSet> snapshot) {
     LevenshteinDistance distance = new LevenshteinDistance(NearestKeys.thresholdFor(name));
     List<Map.Entry<String, Integer>> near = new ArrayList<>();
-    for (String served : snapshot.sets().keySet()) {
+    for (String served : snapshot.all().keySet()) {
       int d = distance.apply(name, served);
       if (d >= 0) {
         near.add(Map.entry(served, d));
@@ -209,7 +210,7 @@ public final class FactsTool implements Tool {
     }
     near.sort(Map.Entry.<String, Integer>comparingByValue().thenComparing(Map.Entry.comparingByKey()));
     List<String> suggestions = near.stream().limit(NearestKeys.MAX_SUGGESTIONS).map(Map.Entry::getKey).toList();
-    String served = snapshot.sets().isEmpty() ? "none" : String.join(", ", snapshot.sets().keySet());
+    String served = snapshot.all().isEmpty() ? "none" : String.join(", ", snapshot.all().keySet());
     if (served.length() > 80) {
       served = served.substring(0, 77) + "...";
     }

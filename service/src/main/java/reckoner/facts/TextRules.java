@@ -2,6 +2,7 @@ package reckoner.facts;
 
 import java.util.Locale;
 import java.util.Optional;
+import reckoner.data.DataText;
 import reckoner.tool.ResultText;
 
 /**
@@ -19,8 +20,6 @@ final class TextRules {
   static final int MAX_VALUE_LENGTH = ResultText.DEFAULT_MAX_LENGTH;
   /** Longest {@code source} note. */
   static final int MAX_SOURCE_LENGTH = 200;
-  /** How much of a caller's text an error detail repeats. */
-  static final int ECHO_LENGTH = 60;
 
   private static final String[] DELIMITERS = {"<<", ">>", "=>"};
 
@@ -85,23 +84,12 @@ final class TextRules {
   }
 
   /**
-   * A caller's text made safe to repeat in an error line: at most {@link #ECHO_LENGTH} characters
+   * A caller's text made safe to repeat in an error line: at most {@link DataText#ECHO_LENGTH} characters
    * on one line, with {@code <} and {@code >} shown as {@code ‹} and {@code ›} so that no splice
    * delimiter can form.
    */
   static String echo(String text) {
-    StringBuilder sb = new StringBuilder(text.length());
-    for (int i = 0; i < text.length(); i++) {
-      char c = text.charAt(i);
-      if (Character.isSurrogate(c) && !(Character.isHighSurrogate(c) && i + 1 < text.length()
-          && Character.isLowSurrogate(text.charAt(i + 1))) && !(Character.isLowSurrogate(c) && i > 0
-          && Character.isHighSurrogate(text.charAt(i - 1)))) {
-        sb.append('\uFFFD');
-      } else {
-        sb.append(c == '<' ? '‹' : c == '>' ? '›' : c);
-      }
-    }
-    return ResultText.clean(sb.toString(), ECHO_LENGTH);
+    return DataText.echo(text);
   }
 
   static String codePoint(int cp) {

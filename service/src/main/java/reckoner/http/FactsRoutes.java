@@ -2,7 +2,7 @@ package reckoner.http;
 
 import io.javalin.http.Context;
 import reckoner.facts.FactStore;
-import reckoner.facts.ReloadReport;
+import reckoner.data.ReloadReport;
 import reckoner.tool.ErrorCode;
 import reckoner.tool.ToolError;
 import tools.jackson.databind.node.ArrayNode;
@@ -47,13 +47,13 @@ final class FactsRoutes {
     body.put("applied", report.applied());
     ArrayNode files = body.putArray("files");
     for (ReloadReport.FileResult f : report.files()) {
-      ObjectNode n = files.addObject().put("file", f.file()).put("facts", f.facts());
+      ObjectNode n = files.addObject().put("file", f.file()).put("facts", f.records());
       ArrayNode problems = n.putArray("problems");
       f.problems().forEach(p -> problems.addObject().put("file", p.file()).put("line", p.line()).put("reason", p.reason()));
     }
     ArrayNode sets = body.putArray("sets");
-    for (ReloadReport.SetChange c : report.sets()) {
-      ObjectNode n = sets.addObject().put("set", c.set()).put("facts", c.facts()).put("changed", c.isChanged());
+    for (ReloadReport.Change c : report.changes()) {
+      ObjectNode n = sets.addObject().put("set", c.name()).put("facts", c.records()).put("changed", c.isChanged());
       c.before().ifPresent(v -> n.put("data_version_before", v));
       c.after().ifPresent(v -> n.put("data_version_after", v));
     }

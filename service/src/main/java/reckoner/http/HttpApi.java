@@ -19,6 +19,7 @@ import reckoner.call.Invoker;
 import reckoner.config.ServiceConfig;
 import reckoner.facts.FactStore;
 import reckoner.ledger.LedgerStore;
+import reckoner.search.SearchStore;
 import reckoner.splice.Filler;
 import reckoner.splice.Markup;
 import reckoner.tool.ErrorCode;
@@ -35,7 +36,7 @@ public final class HttpApi {
 
   /** What the routes need, made by {@code Service}. */
   public record Settings(long maxBodyBytes, long maxBatchBytes, Markup markup, ObjectNode openApi, BooleanSupplier ready,
-      ExecutorService callExecutor, FactStore facts, LedgerStore ledger, KeyStore keys, RateLimits rates,
+      ExecutorService callExecutor, FactStore facts, LedgerStore ledger, SearchStore search, KeyStore keys, RateLimits rates,
       StreamLimits streams, ServiceConfig.Bounds bounds) {}
 
   /** One route: method, path, what it needs of its caller, and its handler. */
@@ -60,6 +61,7 @@ public final class HttpApi {
     FactsRoutes facts = new FactsRoutes(settings.facts(), responses);
     KeysRoutes keys = new KeysRoutes(settings.keys(), responses);
     LedgerRoutes ledger = new LedgerRoutes(settings.ledger(), responses);
+    SearchRoutes search = new SearchRoutes(settings.search(), responses);
     StatusPage status = new StatusPage(callMetrics, responses, java.time.Clock.systemUTC());
     SpliceRoutes splice = new SpliceRoutes(new Filler(invoker), responses, callMetrics, new Bodies(settings.maxBatchBytes()),
         settings.markup(), access);
@@ -79,6 +81,8 @@ public final class HttpApi {
         new Route("POST", "/v1/admin/facts/reload", Need.ADMIN, facts::reload),
         new Route("GET", "/v1/admin/keys", Need.ADMIN, keys::show),
         new Route("POST", "/v1/admin/keys/reload", Need.ADMIN, keys::reload),
+        new Route("GET", "/v1/admin/search", Need.ADMIN, search::show),
+        new Route("POST", "/v1/admin/search/reload", Need.ADMIN, search::reload),
         new Route("GET", "/status", Need.ADMIN, status::show),
         new Route("GET", "/openapi.json", Need.OPEN, ctx -> ctx.contentType(MediaTypes.JSON).result(openApi.get())),
         new Route("GET", "/health/live", Need.OPEN, ctx -> responses.json(ctx, 200, responses.object().put("status", "up"))),

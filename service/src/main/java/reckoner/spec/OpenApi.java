@@ -90,6 +90,12 @@ public final class OpenApi {
         "Read every fact file again; swap atomically only if all are sound (422 data_error otherwise)", "application/json", null);
     problems(reload, "422");
     paths.putObject("/v1/admin/facts/reload").set("post", reload);
+    paths.putObject("/v1/admin/search").set("get", plain(json, "searchCollections",
+        "The search collections served, their data versions and passage counts", "application/json", null));
+    ObjectNode searchReload = plain(json, "reloadSearch",
+        "Read every collection file again; swap atomically only if all are sound (422 data_error otherwise)", "application/json", null);
+    problems(searchReload, "422");
+    paths.putObject("/v1/admin/search/reload").set("post", searchReload);
     paths.putObject("/v1/admin/keys").set("get", plain(json, "apiKeys",
         "The API keys in force: ids, scopes and rates (never their digests), and why the last reload was refused, if it was",
         "application/json", null));

@@ -134,8 +134,8 @@ final class AnswerCacheTest {
       throws Exception {
     java.nio.file.Path file = dir.resolve("ops.jsonl");
     java.nio.file.Files.writeString(file, "{\"set\":\"ops\",\"key\":\"harbour master\",\"value\":\"Ilse Varrow\"}\n");
-    reckoner.facts.FactStore store = reckoner.facts.FactStore.open(List.of(reckoner.facts.FactSource.directory(dir)), "ops");
-    ToolCatalog catalog = ToolCatalog.of(ToolRegistry.of(Tools.standard(store)), new SpecLoader(JSON));
+    reckoner.facts.FactStore store = reckoner.facts.FactStore.open(List.of(reckoner.data.DataSource.directory(dir)), "ops");
+    ToolCatalog catalog = ToolCatalog.of(ToolRegistry.of(Tools.standard(store, reckoner.search.SearchStore.openDemo())), new SpecLoader(JSON));
     Invoker invoker = new Invoker(catalog, Clock.systemUTC(), AnswerCache.ofMaximumSize(1000));
     JsonNode key = JSON.readTree("{\"key\":\"Harbour  Master\"}");
     assertEquals("Ilse Varrow", invoker.invoke(CallRequest.of("facts", 1, key)).text());

@@ -10,6 +10,7 @@ import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
+import reckoner.data.ReloadReport;
 import reckoner.tool.Answer;
 import reckoner.tool.Arguments;
 import reckoner.tool.CallContext;
@@ -37,7 +38,7 @@ final class DemoFactsTest {
   @Test
   void demo_holdsAtLeastTwoHundredFacts() {
     Map<String, Integer> bySet = new java.util.TreeMap<>();
-    STORE.lastReport().sets().forEach(s -> bySet.put(s.set(), s.facts()));
+    STORE.lastReport().changes().forEach(c -> bySet.put(c.name(), c.records()));
     assertEquals(Map.of("demo", 201, "demo-words", 32), bySet);
     assertTrue(STORE.lastReport().files().stream().allMatch(ReloadReport.FileResult::isOk));
   }

@@ -18,6 +18,9 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
+import reckoner.data.DataLoadException;
+import reckoner.data.DataSource;
+import reckoner.data.ReloadReport;
 
 /** Loading, validating and reloading fact files; the data version; the report and the counters. */
 final class FactStoreTest {
@@ -29,8 +32,8 @@ final class FactStoreTest {
 
   private ReloadReport.Problem onlyProblem(String... lines) {
     TestFacts.write(dir, "bad.jsonl", lines);
-    FactLoadException e = assertThrows(FactLoadException.class,
-        () -> FactStore.open(List.of(FactSource.directory(dir)), "s"));
+    DataLoadException e = assertThrows(DataLoadException.class,
+        () -> FactStore.open(List.of(DataSource.directory(dir)), "s"));
     List<ReloadReport.Problem> problems = e.report().problems();
     assertEquals(1, problems.size(), problems::toString);
     return problems.get(0);
@@ -40,10 +43,10 @@ final class FactStoreTest {
 
   @ParameterizedTest(name = "{0}")
   @CsvSource(delimiter = '|', value = {
-      "not JSON|{set:s}|not a JSON object at column 2: expected a member name in double quotes",
-      "trailing comma|{\"set\":\"s\",\"key\":\"k\",\"value\":\"v\",}|not a JSON object at column 34: expected a member name in double quotes",
+      "not JSON|{set:s}|not a JSON object at column 2: Unexpected character ('s' (code 115)): was expecting double-quote to start property name",
+      "trailing comma|{\"set\":\"s\",\"key\":\"k\",\"value\":\"v\",}|not a JSON object at column 34: Unexpected character ('}' (code 125)): was expecting double-quote to start property name",
       "two objects|{\"set\":\"s\",\"key\":\"k\",\"value\":\"v\"} {}|not a JSON object at column 35: unexpected text after the object",
-      "a duplicate member|{\"set\":\"s\",\"key\":\"k\",\"key\":\"j\",\"value\":\"v\"}|not a JSON object at column 22: duplicate member \"key\"",
+      "a duplicate member|{\"set\":\"s\",\"key\":\"k\",\"key\":\"j\",\"value\":\"v\"}|not a JSON object at column 27: Duplicate Object property \"key\"",
       "an array line|[1]|not a JSON object at column 1: expected a JSON object starting with '{'",
       "no set|{\"key\":\"k\",\"value\":\"v\"}|\"set\" is missing",
       "a bad set name|{\"set\":\"S 1\",\"key\":\"k\",\"value\":\"v\"}|\"set\" must be a name of lower-case letters, digits, '_' and '-' (at most 64, starting with a letter or digit) but was \"S 1\"",
@@ -111,7 +114,7 @@ final class FactStoreTest {
     all[bad.length + 1] = (byte) '"';
     all[bad.length + 2] = (byte) '}';
     Files.write(dir.resolve("bad.jsonl"), all);
-    FactLoadException e = assertThrows(FactLoadException.class, () -> FactStore.open(List.of(FactSource.directory(dir)), "s"));
+    DataLoadException e = assertThrows(DataLoadException.class, () -> FactStore.open(List.of(DataSource.directory(dir)), "s"));
     assertEquals(List.of(new ReloadReport.Problem(dir.resolve("bad.jsonl").toString(), 2, "not valid UTF-8")),
         e.report().problems());
   }
@@ -123,7 +126,7 @@ final class FactStoreTest {
       lines.add("{oops}");
     }
     TestFacts.write(dir, "bad.jsonl", lines.toArray(new String[0]));
-    FactLoadException e = assertThrows(FactLoadException.class, () -> FactStore.open(List.of(FactSource.directory(dir)), "s"));
+    DataLoadException e = assertThrows(DataLoadException.class, () -> FactStore.open(List.of(DataSource.directory(dir)), "s"));
     List<ReloadReport.Problem> problems = e.report().problems();
     assertEquals(11, problems.size());
     assertEquals("15 more problems not shown", problems.get(10).reason());
@@ -132,8 +135,8 @@ final class FactStoreTest {
   @Test
   void open_missingDirectory_isReported() {
     Path missing = dir.resolve("nowhere");
-    FactLoadException e = assertThrows(FactLoadException.class, () -> FactStore.open(List.of(FactSource.directory(missing)), "s"));
-    assertEquals("cannot list fact files: not a readable directory", e.report().problems().get(0).reason());
+    DataLoadException e = assertThrows(DataLoadException.class, () -> FactStore.open(List.of(DataSource.directory(missing)), "s"));
+    assertEquals("cannot list the files: not a readable directory", e.report().problems().get(0).reason());
   }
 
   @Test
@@ -144,23 +147,23 @@ final class FactStoreTest {
     Files.writeString(dir.resolve(".hidden.jsonl"), "{oops}", StandardCharsets.UTF_8);
     FactStore store = TestFacts.open(dir, "s");
     assertEquals(1, store.lastReport().files().size());
-    assertEquals(2, store.lastReport().files().get(0).facts());
+    assertEquals(2, store.lastReport().files().get(0).records());
   }
 
   @Test
   void open_crlfLinesAndNoFinalNewline_areRead() throws IOException {
     Files.writeString(dir.resolve("a.jsonl"), CAPITAL + "\r\n" + MOTTO, StandardCharsets.UTF_8);
     FactStore store = TestFacts.open(dir, "s");
-    assertEquals(2, store.lastReport().files().get(0).facts());
+    assertEquals(2, store.lastReport().files().get(0).records());
   }
 
   @Test
   void open_lineOverTheLimit_isReportedAndTheNextLineStillRead() throws IOException {
-    String longLine = "{\"set\":\"s\",\"key\":\"k\",\"value\":\"" + "v".repeat(FactFileReader.MAX_LINE_BYTES) + "\"}";
+    String longLine = "{\"set\":\"s\",\"key\":\"k\",\"value\":\"" + "v".repeat(FactsFormat.MAX_LINE_BYTES) + "\"}";
     Files.writeString(dir.resolve("a.jsonl"), longLine + "\n{oops}\n", StandardCharsets.UTF_8);
-    FactLoadException e = assertThrows(FactLoadException.class, () -> FactStore.open(List.of(FactSource.directory(dir)), "s"));
+    DataLoadException e = assertThrows(DataLoadException.class, () -> FactStore.open(List.of(DataSource.directory(dir)), "s"));
     assertEquals(List.of("1: line is longer than 65536 bytes",
-        "2: not a JSON object at column 2: expected a member name in double quotes"),
+        "2: not a JSON object at column 2: Unexpected character ('o' (code 111)): was expecting double-quote to start property name"),
         e.report().problems().stream().map(p -> p.line() + ": " + p.reason()).toList());
   }
 
@@ -218,7 +221,7 @@ final class FactStoreTest {
     assertTrue(report.applied());
     String after = store.dataVersion("s").orElseThrow();
     assertNotEquals(before, after);
-    assertEquals(List.of(new ReloadReport.SetChange("s", Optional.of(before), Optional.of(after), 2)), report.sets());
+    assertEquals(List.of(new ReloadReport.Change("s", Optional.of(before), Optional.of(after), 2)), report.changes());
     assertEquals(2, store.reloadSuccesses());
     assertEquals(0, store.reloadFailures());
   }
@@ -233,8 +236,8 @@ final class FactStoreTest {
     ReloadReport report = store.reload();
     assertFalse(report.applied());
     assertEquals(List.of(new ReloadReport.Problem(dir.resolve("a.jsonl").toString(), 2,
-        "not a JSON object at column 26: expected ',' or '}' but the line ended")), report.problems());
-    assertEquals(List.of(new ReloadReport.SetChange("s", Optional.of(before), Optional.of(before), 1)), report.sets());
+        "not a JSON object at column 26: Unexpected end-of-input: expected close marker for Object")), report.problems());
+    assertEquals(List.of(new ReloadReport.Change("s", Optional.of(before), Optional.of(before), 1)), report.changes());
     assertEquals(Optional.of(before), store.dataVersion("s"));
     var answer = tool.invoke(tool.canonicalize(reckoner.tool.Arguments.of("key", "capital")),
         new reckoner.tool.CallContext(TestFacts.CLOCK));
@@ -258,14 +261,14 @@ final class FactStoreTest {
     ReloadReport report = store.reload();
     assertTrue(report.applied());
     assertEquals(Optional.empty(), store.dataVersion("t"));
-    assertTrue(report.sets().contains(new ReloadReport.SetChange("t", Optional.of(t), Optional.empty(), 1)));
+    assertTrue(report.changes().contains(new ReloadReport.Change("t", Optional.of(t), Optional.empty(), 1)));
   }
 
   @Test
-  void reload_tellsTheListener_andAFailingListenerHarmsNothing() throws FactLoadException {
+  void reload_tellsTheListener_andAFailingListenerHarmsNothing() throws DataLoadException {
     TestFacts.write(dir, "a.jsonl", CAPITAL);
     List<ReloadReport> seen = new ArrayList<>();
-    FactStore store = FactStore.open(List.of(FactSource.directory(dir)), "s", report -> {
+    FactStore store = FactStore.open(List.of(DataSource.directory(dir)), "s", report -> {
       seen.add(report);
       throw new IllegalStateException("a broken metrics hook");
     });
@@ -279,6 +282,6 @@ final class FactStoreTest {
 
   @Test
   void open_badDefaultSetName_isAProgrammerError() {
-    assertThrows(IllegalArgumentException.class, () -> FactStore.open(List.of(FactSource.demo()), "Demo"));
+    assertThrows(IllegalArgumentException.class, () -> FactStore.open(List.of(FactStore.demo()), "Demo"));
   }
 }

@@ -23,6 +23,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import reckoner.call.Invoker;
 import reckoner.call.Outcome;
+import reckoner.data.ReloadReport;
 
 /**
  * Reloads under load: many threads call facts@1 through the Invoker while one thread swaps the

@@ -12,6 +12,8 @@ import java.time.Duration;
 import java.util.Optional;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import reckoner.data.DataWatcher;
+import reckoner.data.ReloadReport;
 
 /** Reloading on file change: a change must hold still for one poll, bad files are tried once, and close() stops it. */
 final class FactsWatcherTest {
@@ -25,7 +27,7 @@ final class FactsWatcherTest {
   void pollOnce_noChange_doesNothing() {
     TestFacts.write(dir, "a.jsonl", ONE);
     FactStore store = TestFacts.open(dir, "s");
-    FactsWatcher watcher = FactsWatcher.over(store, Duration.ofSeconds(1));
+    DataWatcher watcher = DataWatcher.over(store.data(), Duration.ofSeconds(1));
     assertNull(watcher.pollOnce());
     assertNull(watcher.pollOnce());
     assertEquals(1, store.reloadSuccesses());
@@ -36,7 +38,7 @@ final class FactsWatcherTest {
     TestFacts.write(dir, "a.jsonl", ONE);
     FactStore store = TestFacts.open(dir, "s");
     Optional<String> before = store.dataVersion("s");
-    FactsWatcher watcher = FactsWatcher.over(store, Duration.ofSeconds(1));
+    DataWatcher watcher = DataWatcher.over(store.data(), Duration.ofSeconds(1));
     TestFacts.write(dir, "a.jsonl", TWO);
     assertNull(watcher.pollOnce()); // seen, waiting to settle
     ReloadReport report = watcher.pollOnce();
@@ -49,7 +51,7 @@ final class FactsWatcherTest {
   void pollOnce_fileStillChanging_waitsAgain() {
     TestFacts.write(dir, "a.jsonl", ONE);
     FactStore store = TestFacts.open(dir, "s");
-    FactsWatcher watcher = FactsWatcher.over(store, Duration.ofSeconds(1));
+    DataWatcher watcher = DataWatcher.over(store.data(), Duration.ofSeconds(1));
     TestFacts.write(dir, "a.jsonl", TWO);
     assertNull(watcher.pollOnce());
     TestFacts.write(dir, "a.jsonl", ONE, TWO.replace("\"k\"", "\"j\""));
@@ -63,7 +65,7 @@ final class FactsWatcherTest {
     TestFacts.write(dir, "a.jsonl", ONE);
     FactStore store = TestFacts.open(dir, "s");
     Optional<String> before = store.dataVersion("s");
-    FactsWatcher watcher = FactsWatcher.over(store, Duration.ofSeconds(1));
+    DataWatcher watcher = DataWatcher.over(store.data(), Duration.ofSeconds(1));
     TestFacts.write(dir, "a.jsonl", "{broken");
     watcher.pollOnce();
     ReloadReport refused = watcher.pollOnce();
@@ -81,7 +83,7 @@ final class FactsWatcherTest {
   void pollOnce_afterAnAdminReload_seesNoChange() {
     TestFacts.write(dir, "a.jsonl", ONE);
     FactStore store = TestFacts.open(dir, "s");
-    FactsWatcher watcher = FactsWatcher.over(store, Duration.ofSeconds(1));
+    DataWatcher watcher = DataWatcher.over(store.data(), Duration.ofSeconds(1));
     TestFacts.write(dir, "a.jsonl", TWO);
     store.reload();
     assertNull(watcher.pollOnce());
@@ -94,7 +96,7 @@ final class FactsWatcherTest {
     TestFacts.write(dir, "a.jsonl", ONE);
     FactStore store = TestFacts.open(dir, "s");
     Optional<String> one = store.dataVersion("s");
-    try (FactsWatcher watcher = FactsWatcher.over(store, Duration.ofMillis(20)).start()) {
+    try (DataWatcher watcher = DataWatcher.over(store.data(), Duration.ofMillis(20)).start()) {
       TestFacts.write(dir, "a.jsonl", TWO);
       long deadline = System.nanoTime() + Duration.ofSeconds(20).toNanos();
       while (store.dataVersion("s").equals(one) && System.nanoTime() < deadline) {
@@ -114,6 +116,6 @@ final class FactsWatcherTest {
   void over_nonPositiveInterval_isRefused() {
     TestFacts.write(dir, "a.jsonl", ONE);
     FactStore store = TestFacts.open(dir, "s");
-    assertThrows(IllegalArgumentException.class, () -> FactsWatcher.over(store, Duration.ZERO));
+    assertThrows(IllegalArgumentException.class, () -> DataWatcher.over(store.data(), Duration.ZERO));
   }
 }

@@ -13,6 +13,8 @@ import java.util.List;
 import reckoner.call.CallRequest;
 import reckoner.call.Invoker;
 import reckoner.call.Outcome;
+import reckoner.data.DataLoadException;
+import reckoner.data.DataSource;
 import reckoner.spec.Json;
 import reckoner.spec.SpecLoader;
 import reckoner.spec.ToolCatalog;
@@ -40,16 +42,16 @@ final class TestFacts {
 
   static FactStore open(Path dir, String defaultSet) {
     try {
-      return FactStore.open(List.of(FactSource.directory(dir)), defaultSet);
-    } catch (FactLoadException e) {
+      return FactStore.open(List.of(DataSource.directory(dir)), defaultSet);
+    } catch (DataLoadException e) {
       throw new AssertionError(e.report().problems().toString(), e);
     }
   }
 
   static FactStore demo() {
     try {
-      return FactStore.open(List.of(FactSource.demo()), FactSource.DEMO_DEFAULT_SET);
-    } catch (FactLoadException e) {
+      return FactStore.open(List.of(FactStore.demo()), FactStore.DEMO_DEFAULT_SET);
+    } catch (DataLoadException e) {
       throw new AssertionError(e.report().problems().toString(), e);
     }
   }

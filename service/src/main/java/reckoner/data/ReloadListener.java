@@ -1,7 +1,7 @@
-package reckoner.facts;
+package reckoner.data;
 
 /**
- * Told of every load and reload of a {@link FactStore}, applied or not: the hook for metrics,
+ * Told of every load and reload of a {@link DataStore}, applied or not: the hook for metrics,
  * alerts and cache invalidation. Called on the thread that reloaded, after the swap; an exception
  * thrown here is logged and does not affect the store.
  */

@@ -1,14 +1,14 @@
-package reckoner.facts;
+package reckoner.data;
 
 /**
- * Thrown when a fact store cannot be opened because its first load found problems; the report
+ * Thrown when a data store cannot be opened because its first load found problems; the report
  * names every file, line and reason.
  */
-public final class FactLoadException extends Exception {
+public final class DataLoadException extends Exception {
   private static final long serialVersionUID = 1L;
   private final transient ReloadReport report;
 
-  FactLoadException(ReloadReport report) {
+  DataLoadException(ReloadReport report) {
     super(report.summary());
     this.report = report;
   }

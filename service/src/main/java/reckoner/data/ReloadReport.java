@@ -1,4 +1,4 @@
-package reckoner.facts;
+package reckoner.data;
 
 import java.util.ArrayList;
 import java.util.List;
@@ -6,18 +6,20 @@ import java.util.Objects;
 import java.util.Optional;
 
 /**
- * What one load or reload of the fact files came to. A reload is all or nothing: when any file
- * has a problem, nothing is swapped ({@code applied} is false) and every set keeps serving its
- * previous data version. Immutable.
+ * What one load or reload of a store's data files came to. A reload is all or nothing: when any
+ * file has a problem, nothing is swapped ({@code applied} is false) and every dataset keeps serving
+ * its previous data version. Immutable.
  *
- * @param applied whether the new facts replaced the old ones
- * @param files every file read, in load order, with its fact count and problems
- * @param sets every set served before or after, by name, with its data version before and after
+ * @param kind what the files hold, as the log says it ({@code facts}, {@code search collections})
+ * @param applied whether the new data replaced the old
+ * @param files every file read, in load order, with its record count and problems
+ * @param changes every dataset served before or after, by name, with its data version before and after
  */
-public record ReloadReport(boolean applied, List<FileResult> files, List<SetChange> sets) {
+public record ReloadReport(String kind, boolean applied, List<FileResult> files, List<Change> changes) {
   public ReloadReport {
+    Objects.requireNonNull(kind, "kind");
     files = List.copyOf(files);
-    sets = List.copyOf(sets);
+    changes = List.copyOf(changes);
   }
 
   /** Why a line (or, at line 0, a whole file or directory) could not be loaded. */
@@ -34,8 +36,8 @@ public record ReloadReport(boolean applied, List<FileResult> files, List<SetChan
     }
   }
 
-  /** One file's outcome: how many facts it held and what was wrong with it (empty when ok). */
-  public record FileResult(String file, int facts, List<Problem> problems) {
+  /** One file's outcome: how many records it held and what was wrong with it (empty when ok). */
+  public record FileResult(String file, int records, List<Problem> problems) {
     public FileResult {
       Objects.requireNonNull(file, "file");
       problems = List.copyOf(problems);
@@ -46,10 +48,10 @@ public record ReloadReport(boolean applied, List<FileResult> files, List<SetChan
     }
   }
 
-  /** A set's data version before and after; empty where the set did not exist. */
-  public record SetChange(String set, Optional<String> before, Optional<String> after, int facts) {
-    public SetChange {
-      Objects.requireNonNull(set, "set");
+  /** A dataset's data version before and after; empty where the dataset did not exist. */
+  public record Change(String name, Optional<String> before, Optional<String> after, int records) {
+    public Change {
+      Objects.requireNonNull(name, "name");
       Objects.requireNonNull(before, "before");
       Objects.requireNonNull(after, "after");
     }
@@ -66,16 +68,16 @@ public record ReloadReport(boolean applied, List<FileResult> files, List<SetChan
     return all;
   }
 
-  /** One line for a log: applied or not, each set's version, or the first problem. */
+  /** One line for a log: applied or not, each dataset's version, or the first problem. */
   public String summary() {
-    StringBuilder sb = new StringBuilder(applied ? "facts loaded:" : "facts not reloaded, old data kept:");
+    StringBuilder sb = new StringBuilder(kind).append(applied ? " loaded:" : " not reloaded, old data kept:");
     if (!applied) {
       List<Problem> problems = problems();
       sb.append(' ').append(problems.size()).append(problems.size() == 1 ? " problem, first " : " problems, first ")
           .append(problems.isEmpty() ? "none" : problems.get(0).toString()).append(';');
     }
-    for (SetChange s : sets) {
-      sb.append(' ').append(s.set()).append(' ').append(s.after().or(s::before).orElse("(none)"));
+    for (Change c : changes) {
+      sb.append(' ').append(c.name()).append(' ').append(c.after().or(c::before).orElse("(none)"));
     }
     return sb.toString();
   }

@@ -1,4 +1,4 @@
-package reckoner.facts;
+package reckoner.data;
 
 import java.time.Duration;
 import java.util.Objects;
@@ -9,40 +9,42 @@ import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 
 /**
- * Reloads a {@link FactStore} when its files change, by polling their names, sizes and
+ * Reloads a {@link DataStore} when its files change, by polling their names, sizes and
  * modification times every {@code interval}. A change is acted on once it has held still for one
  * whole interval, so a file caught half-written is not loaded (and if it were, the reload would
  * refuse it and keep the old data). Writing the new file elsewhere and renaming it into place is
  * still the safest way to publish. Stoppable with {@link #close()}; thread-safe.
  */
-public final class FactsWatcher implements AutoCloseable {
-  private static final Logger LOG = LoggerFactory.getLogger(FactsWatcher.class);
+public final class DataWatcher implements AutoCloseable {
+  private static final Logger LOG = LoggerFactory.getLogger(DataWatcher.class);
 
-  private final FactStore store;
+  private final DataStore<?> store;
+  private final String threadName;
   private final Duration interval;
   private Object pending;  // a fingerprint unlike the last reload's, waiting to hold still
   private ScheduledExecutorService executor;
   private volatile Thread thread; // the polling thread, joined by close()
 
-  private FactsWatcher(FactStore store, Duration interval) {
+  private DataWatcher(DataStore<?> store, Duration interval) {
     this.store = store;
     this.interval = interval;
+    this.threadName = store.kind().replace(' ', '-') + "-watcher";
   }
 
   /** A watcher over {@code store}, not yet started. */
-  public static FactsWatcher over(FactStore store, Duration interval) {
+  public static DataWatcher over(DataStore<?> store, Duration interval) {
     Objects.requireNonNull(store, "store");
     if (interval.isNegative() || interval.isZero()) {
       throw new IllegalArgumentException("interval must be positive: " + interval);
     }
-    return new FactsWatcher(store, interval);
+    return new DataWatcher(store, interval);
   }
 
-  /** Starts polling on a daemon thread named {@code facts-watcher}. Idempotent. */
-  public synchronized FactsWatcher start() {
+  /** Starts polling on a daemon thread named after the store's kind ({@code facts-watcher}). Idempotent. */
+  public synchronized DataWatcher start() {
     if (executor == null) {
       executor = Executors.newSingleThreadScheduledExecutor(r -> {
-        Thread t = new Thread(r, "facts-watcher");
+        Thread t = new Thread(r, threadName);
         t.setDaemon(true);
         thread = t; // called under this lock: the executor makes its one thread on first use below
         return t;
@@ -88,7 +90,7 @@ public final class FactsWatcher implements AutoCloseable {
     e.shutdown(); // no interrupt: a reload in progress finishes its reads
     try {
       if (!e.awaitTermination(30, TimeUnit.SECONDS)) {
-        LOG.warn("the facts watcher did not stop within 30 s");
+        LOG.warn("the {} did not stop within 30 s", threadName);
       }
       if (t != null) {
         t.join(TimeUnit.SECONDS.toMillis(30));
@@ -102,7 +104,7 @@ public final class FactsWatcher implements AutoCloseable {
     try {
       pollOnce();
     } catch (RuntimeException e) {
-      LOG.warn("the facts watcher failed to poll; it keeps polling", e); // an observer never stops serving
+      LOG.warn("the {} failed to poll; it keeps polling", threadName, e); // an observer never stops serving
     }
   }
 }

@@ -1,4 +1,4 @@
-package reckoner.facts;
+package reckoner.data;
 
 import java.io.IOException;
 import java.io.InputStream;
@@ -13,51 +13,39 @@ import java.util.concurrent.TimeUnit;
 import java.util.stream.Stream;
 
 /**
- * Where fact files come from: a directory of {@code *.jsonl} files, or a fixed list of classpath
- * resources (the demo set shipped in the jar). Files load in a fixed order: sources in the order
+ * Where data files come from: a directory of {@code *.jsonl} files, or a fixed list of classpath
+ * resources (demo data shipped in the jar). Files load in a fixed order: sources in the order
  * given, and within a directory by file name (code-unit order, the same on every machine); names
  * starting with {@code .} are skipped, so editors' and copy tools' temporary files never load.
  * Immutable.
  */
-public abstract class FactSource {
-  /** The classpath folder of the demo fact files. */
-  public static final String DEMO_FOLDER = "demo-facts/";
-  /** The demo files, in load order. */
-  public static final List<String> DEMO_FILES = List.of("tarrowin.jsonl", "tarrowin-words.jsonl");
-  /** The name of the demo's main set, the natural default set when the demo is served. */
-  public static final String DEMO_DEFAULT_SET = "demo";
-
+public abstract class DataSource {
   /** One file to read: its name for reports, and how to open it (bytes; the reader decodes UTF-8 per line). */
-  interface Input {
+  public interface Input {
     String name();
 
     InputStream open() throws IOException;
   }
 
-  private FactSource() {}
+  private DataSource() {}
 
   /** The {@code *.jsonl} files directly inside {@code dir} (not its subfolders). */
-  public static FactSource directory(Path dir) {
+  public static DataSource directory(Path dir) {
     return new Directory(Objects.requireNonNull(dir, "dir"));
   }
 
   /** One directory source per path, in order. */
-  public static List<FactSource> directories(List<Path> dirs) {
-    return dirs.stream().map(FactSource::directory).toList();
-  }
-
-  /** The demo fact set shipped with the service (sets {@code demo} and {@code demo-words}). */
-  public static FactSource demo() {
-    return resources(FactSource.class.getClassLoader(), DEMO_FOLDER, DEMO_FILES);
+  public static List<DataSource> directories(List<Path> dirs) {
+    return dirs.stream().map(DataSource::directory).toList();
   }
 
   /** Classpath resources {@code folder + name} for each name, in order. */
-  public static FactSource resources(ClassLoader loader, String folder, List<String> names) {
+  public static DataSource resources(ClassLoader loader, String folder, List<String> names) {
     return new Resources(Objects.requireNonNull(loader, "loader"), folder, List.copyOf(names));
   }
 
   /** The files to read, in load order. */
-  abstract List<Input> inputs() throws IOException;
+  public abstract List<Input> inputs() throws IOException;
 
   /**
    * A value that changes when the files change (names, sizes, modification times), cheap enough
@@ -65,7 +53,7 @@ public abstract class FactSource {
    */
   abstract Object fingerprint();
 
-  private static final class Directory extends FactSource {
+  private static final class Directory extends DataSource {
     private final Path dir;
 
     Directory(Path dir) {
@@ -73,7 +61,7 @@ public abstract class FactSource {
     }
 
     @Override
-    List<Input> inputs() throws IOException {
+    public List<Input> inputs() throws IOException {
       List<Input> inputs = new ArrayList<>();
       for (Path file : files()) {
         inputs.add(new Input() {
@@ -127,7 +115,7 @@ public abstract class FactSource {
     }
   }
 
-  private static final class Resources extends FactSource {
+  private static final class Resources extends DataSource {
     private final ClassLoader loader;
     private final String folder;
     private final List<String> names;
@@ -139,7 +127,7 @@ public abstract class FactSource {
     }
 
     @Override
-    List<Input> inputs() {
+    public List<Input> inputs() {
       List<Input> inputs = new ArrayList<>();
       for (String name : names) {
         String resource = folder + name;
