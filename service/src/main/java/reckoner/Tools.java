@@ -9,6 +9,7 @@ import reckoner.facts.FactStore;
 import reckoner.facts.FactsTool;
 import reckoner.tool.Tool;
 import reckoner.units.UnitsTool;
+import reckoner.units.UnitsToolV2;
 
 /** The tool versions this build serves, listed explicitly. A new version is one more line. */
 public final class Tools {
@@ -20,6 +21,7 @@ public final class Tools {
         new ArithTool(),
         new DatesTool(),
         new UnitsTool(),
+        new UnitsToolV2(),
         new FactsTool(facts));
   }
 
