@@ -126,8 +126,10 @@ def parts(x, sizes, digits=6):
             if whole[i] >= sizes[i - 1] // sizes[i]:
                 whole[i] -= sizes[i - 1] // sizes[i]
                 whole[i - 1] += 1
-    out = [str(w) for w in whole] + [fmt(last)]
-    return ("-" if neg and (any(whole) or last != 0) else ""), out
+    if neg:  # every part that is not zero is negative, so that the parts add up to the value
+        whole = [-w for w in whole]
+        last = -last
+    return "", [str(w) for w in whole] + [fmt(last)]
 
 
 cases = []
@@ -315,7 +317,7 @@ mixed("5 ft 11 in to m+cm", (5 * FT + 11 * INCH) / CM, ["m", "cm"], [100, 1], IN
 mixed("1.5 h to h+min", 90, ["h", "min"], [60, 1], SI)
 mixed("30.2528 ° to °+′+″", Fr("30.2528") * 3600, ["°", "′", "″"], [3600, 60, 1],
       "SI Brochure Table 8 (1° = 60′ = 3600″)")
-mixed("-1.5 h to h+min", -90, ["h", "min"], [60, 1], SI + "; one sign on the whole")
+mixed("-1.5 h to h+min", -90, ["h", "min"], [60, 1], SI + "; each part negative, as ICU4J writes mixed units")
 # ---- fractions and words as amounts --------------------------------------------------------------
 ok("1/2 cup_us to mL", CUP_US / 2 / ML, "mL", HB44)
 ok("3/4 in to mm", Fr(3, 4) * INCH / MM, "mm", IN59)

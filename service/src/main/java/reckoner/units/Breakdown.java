@@ -12,8 +12,9 @@ import reckoner.tool.DecimalText;
  * Writes a value in a target of parts, largest first ({@code 5 ft 10.8661 in}): the value is
  * split exactly into whole larger units, and only the last (smallest) part is rounded, to the
  * significant digits or places asked; a rounding that reaches a whole next-larger unit carries
- * into it ({@code 11.99999 in} at 4 digits is {@code 1 ft 0 in}). A negative value shows one
- * minus sign, before the first part. Every part is shown, zeros included. Pure functions.
+ * into it ({@code 11.99999 in} at 4 digits is {@code 1 ft 0 in}). Every part is shown, zeros
+ * included; for a negative value every part that is not zero is negative, so that the parts add
+ * up to the value ({@code -7 ft -6 in}, as ICU4J's mixed units write it). Pure functions.
  */
 final class Breakdown {
   private Breakdown() {}
@@ -49,7 +50,7 @@ final class Breakdown {
     RoundingMode magnitude = onMagnitude(mode, negative);
     BigDecimal last = places.isPresent()
         ? rest.toBigDecimal(places.get(), magnitude)
-        : rest.isZero() ? BigDecimal.ZERO : rest.toBigDecimal(new MathContext(digits, magnitude));
+        : padded(rest.isZero() ? BigDecimal.ZERO : rest.toBigDecimal(new MathContext(digits, magnitude)), digits);
     if (n > 1 && last.compareTo(new BigDecimal(ratio[n - 2])) >= 0) { // rounded up to a whole larger unit
       last = last.subtract(new BigDecimal(ratio[n - 2]));
       whole[n - 2] = whole[n - 2].add(BigInteger.ONE);
@@ -58,18 +59,21 @@ final class Breakdown {
         whole[i - 1] = whole[i - 1].add(BigInteger.ONE);
       }
     }
-    boolean zero = last.signum() == 0;
-    for (BigInteger w : whole) {
-      zero &= w.signum() == 0;
-    }
     StringBuilder sb = new StringBuilder();
-    if (negative && !zero) {
-      sb.append('-');
-    }
     for (int i = 0; i < n - 1; i++) {
-      sb.append(whole[i]).append(' ').append(written.get(i)).append(' ');
+      sb.append(negative ? whole[i].negate() : whole[i]).append(' ').append(written.get(i)).append(' ');
     }
-    return sb.append(DecimalText.format(last, pad)).append(' ').append(written.get(n - 1)).toString();
+    return sb.append(DecimalText.format(negative ? last.negate() : last, pad)).append(' ').append(written.get(n - 1))
+        .toString();
+  }
+
+  /**
+   * {@code value} with the zeros that {@code digits} significant digits show (25.4 at 5 digits is
+   * 25.400), for pad_zeros: an exact result shorter than the digits asked keeps them in units@2.
+   */
+  static BigDecimal padded(BigDecimal value, int digits) {
+    int missing = digits - (value.signum() == 0 ? 1 : value.precision());
+    return missing > 0 ? value.setScale(value.scale() + missing) : value;
   }
 
   private static BigInteger floor(Rational r) {

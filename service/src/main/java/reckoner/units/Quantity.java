@@ -132,14 +132,12 @@ record Quantity(List<Part> parts) {
   /** {@code 5ft11in}: a last unit glued to the next part's amount, split where the whole does not read. */
   private static boolean addCompact(List<Part> parts, Rational value, String unitText, UnitTable table, UnitProbe probe)
       throws ToolException {
-    if (unitText.indexOf(' ') >= 0 || !Character.isLetter(unitText.charAt(0)) || probe.readable(unit(unitText, table))) {
-      return false;
-    }
     int digit = 0;
     while (digit < unitText.length() && Character.isLetter(unitText.charAt(digit))) {
       digit++;
     }
-    if (digit == unitText.length() || !probe.readable(unitText.substring(0, digit))) {
+    if (digit == 0 || digit == unitText.length() || !isDigit(unitText.charAt(digit)) || unitText.indexOf(' ') >= 0
+        || probe.readable(unit(unitText, table)) || !probe.readable(unitText.substring(0, digit))) {
       return false;
     }
     Quantity rest;

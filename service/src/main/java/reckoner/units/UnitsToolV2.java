@@ -150,7 +150,7 @@ public final class UnitsToolV2 implements Tool {
     if (to.size() == 1) {
       BigDecimal rounded = places.isPresent()
           ? Rounder.toPlaces(exact, places.get(), rounding.mode())
-          : Rounder.toDigits(exact, digits, rounding.mode());
+          : Breakdown.padded(Rounder.toDigits(exact, digits, rounding.mode()), digits);
       text = DecimalText.format(rounded, pad) + " " + r.toWritten().get(0);
     } else {
       text = Breakdown.format(exact, r.to(), r.toWritten(), places, digits, rounding.mode(), pad);
