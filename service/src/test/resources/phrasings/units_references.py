@@ -252,6 +252,8 @@ ok("convert 100 from celsius to fahrenheit", c_to_f(100), "fahrenheit", SP811_F)
 ok("what is 25 C in F?", c_to_f(25), "F", SP811_F)
 ok("what is 100 F in Celsius?", f_to_c(100), "Celsius", SP811_F)
 ok("−40 °C to °F", c_to_f(-40), "°F", SP811_F + "; U+2212 minus")
+ok("100 c to f", c_to_f(100), "f", SP811_F + "; c and f typed for C and F")
+ok("what's 37 c in f", c_to_f(37), "f", SP811_F)
 ok("25 °C/min to K/s", Fr(25, 60), "K/s", SP811_F + "; a Celsius degree as a difference is 1 K")
 ok("10 °F/h to K/h", 10 * Fr(5, 9), "K/h", SP811_F + "; a Fahrenheit degree as a difference is 5/9 K")
 # ---- question forms ------------------------------------------------------------------------------

@@ -129,9 +129,9 @@ final class Resolver {
         joined.isEmpty() ? null : String.join("; ", joined));
   }
 
-  /** Whether an expression is a bare C or F, which beside a temperature reads as °C or °F. */
+  /** Whether an expression is a bare C or F (either case), which beside a temperature reads as °C or °F. */
   static boolean isTemperatureLetter(String unit) {
-    return unit.equals("C") || unit.equals("F");
+    return unit.equalsIgnoreCase("C") || unit.equalsIgnoreCase("F");
   }
 
   private static Dimension firstDimension(Unit[] units, int from, int to) {

@@ -125,10 +125,8 @@ final class SystemReadings implements UnitParser.Readings {
     if (!whole || hint == null || r.def().isAmbiguous()) {
       return r;
     }
-    if (hint.equals(TEMPERATURE) && r.prefix() == null && (written.equals("C") || written.equals("F"))) {
-      UnitDef scale = table.byKey(written.equals("C") ? "degC" : "degF").orElseThrow();
-      notes.add("'" + written + "' read as " + scale.shownSymbol() + " (" + scale.shownName() + ")");
-      return new UnitTable.Resolved(scale, null);
+    if (hint.equals(TEMPERATURE) && r.prefix() == null && Resolver.isTemperatureLetter(written)) {
+      return temperatureScale(written);
     }
     if (fits(r)) {
       return r;
@@ -156,6 +154,9 @@ final class SystemReadings implements UnitParser.Readings {
 
   @Override
   public Optional<UnitTable.Resolved> unknown(String written, boolean whole) throws ToolException {
+    if (whole && TEMPERATURE.equals(hint) && Resolver.isTemperatureLetter(written)) {
+      return Optional.of(temperatureScale(written)); // 100 c to f
+    }
     List<Spelling> candidates = distinct(caseIndex.getOrDefault(Words.fold(written), List.of()));
     if (candidates.size() > 1 && whole && hint != null) {
       List<Spelling> fitting = candidates.stream().filter(s -> fits(s.resolved)).toList();
@@ -228,6 +229,13 @@ final class SystemReadings implements UnitParser.Readings {
   }
 
   // ---- helpers ------------------------------------------------------------------------------------
+
+  /** °C for a bare C, °F for a bare F (either case), noted. */
+  private UnitTable.Resolved temperatureScale(String written) {
+    UnitDef scale = table.byKey(written.equalsIgnoreCase("C") ? "degC" : "degF").orElseThrow();
+    notes.add("'" + written + "' read as " + scale.shownSymbol() + " (" + scale.shownName() + ")");
+    return new UnitTable.Resolved(scale, null);
+  }
 
   private boolean fits(UnitTable.Resolved r) {
     Dimension d = dimensionOf(r);
