@@ -217,7 +217,8 @@ final class Phrasing {
     String t = UnitText.prepare(target);
     List<String> parts = new ArrayList<>();
     StringBuilder current = new StringBuilder();
-    for (String token : (t.replace("+", " + ").replace("&", " & ").replace(",", " , ")).split(" ")) {
+    boolean joined = t.indexOf('+') >= 0 || t.indexOf('&') >= 0 || t.indexOf(',') >= 0;
+    for (String token : (joined ? t.replace("+", " + ").replace("&", " & ").replace(",", " , ") : t).split(" ")) {
       if (token.isEmpty()) {
         continue;
       }

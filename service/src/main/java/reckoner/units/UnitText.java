@@ -1,7 +1,5 @@
 package reckoner.units;
 
-import java.util.ArrayList;
-import java.util.List;
 import reckoner.tool.ErrorCode;
 import reckoner.tool.ToolException;
 
@@ -107,13 +105,25 @@ final class UnitText {
           && (i + 1 >= u.length() || !isDigit(u.charAt(i + 1)));
       sb.append(abbreviation ? ' ' : c);
     }
-    List<String> words = new ArrayList<>();
-    for (String w : sb.toString().trim().split(" +")) {
-      if (!w.isEmpty()) {
-        words.add(glued(w, table));
+    StringBuilder out = new StringBuilder(sb.length());
+    int i = 0;
+    while (i < sb.length()) {
+      while (i < sb.length() && sb.charAt(i) == ' ') {
+        i++;
       }
+      int end = i;
+      while (end < sb.length() && sb.charAt(end) != ' ') {
+        end++;
+      }
+      if (end > i) {
+        if (out.length() > 0) {
+          out.append(' ');
+        }
+        out.append(glued(sb.substring(i, end), table));
+      }
+      i = end;
     }
-    return String.join(" ", words);
+    return out.toString();
   }
 
   /** {@code sqft} as {@code sq ft}, {@code cuin} as {@code cu in}, where the table knows the rest but not the word. */
