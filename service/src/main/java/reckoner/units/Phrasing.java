@@ -28,6 +28,8 @@ import reckoner.tool.ToolException;
  */
 final class Phrasing {
   static final int MAX_TEXT = 1000;
+  /** At most this many ways to split one text are tried; a real phrase has one to three. */
+  static final int MAX_SPLITS = 16;
 
   /** The quantity and the target of a text, the target's parts as written (cleaned). */
   record Call(Quantity quantity, List<String> to) {}
@@ -100,6 +102,7 @@ final class Phrasing {
         for (String[] sep : SEPARATORS.get(g)) {
           if (matches(tokens, i, sep) && i + sep.length < tokens.size()) {
             String source = (glued ? "" : " ") + String.join(" ", tokens.subList(0, i));
+            requireFewSplits(candidates);
             candidates.add(candidate(g, () -> Quantity.parse(amount.value(), source, table, probe),
                 String.join(" ", tokens.subList(i + sep.length, tokens.size())), table, probe));
             break;
@@ -126,6 +129,7 @@ final class Phrasing {
         if (matches(tokens, i, connector) && i + connector.length - keep < tokens.size()) {
           String source = String.join(" ", tokens.subList(i + connector.length - keep, tokens.size()));
           String target = String.join(" ", tokens.subList(0, i));
+          requireFewSplits(candidates);
           candidates.add(candidate(c, () -> Quantity.parse(source, table, probe), target, table, probe));
         }
       }
@@ -138,6 +142,13 @@ final class Phrasing {
   }
 
   // ---- choosing a split ---------------------------------------------------------------------------
+
+  private static void requireFewSplits(List<Candidate> candidates) throws ToolException {
+    if (candidates.size() >= MAX_SPLITS) {
+      throw new ToolException(ErrorCode.LIMIT_EXCEEDED, "the text can be split into a quantity and a unit in more"
+          + " than " + MAX_SPLITS + " places; give value, from and to as separate arguments");
+    }
+  }
 
   private record Candidate(int group, Call call, int score, ToolException error) {}
 

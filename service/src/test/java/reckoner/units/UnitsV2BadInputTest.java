@@ -101,6 +101,7 @@ final class UnitsV2BadInputTest {
         text("1 " + "m".repeat(100_000) + " to m", ErrorCode.LIMIT_EXCEEDED),
         args(Map.of("value", 1, "from", "m ".repeat(150), "to", "m"), ErrorCode.LIMIT_EXCEEDED),
         text("1 ft 1 in 1 ft 1 in 1 ft 1 in 1 ft to m", ErrorCode.LIMIT_EXCEEDED),
+        text("1 m" + " in m".repeat(40) + " to m", ErrorCode.LIMIT_EXCEEDED),
         // malformed requests: 400
         args(Map.of("text", "3 cups to ml", "value", 3), ErrorCode.INVALID_ARGUMENT),
         args(Map.of("quantity", "5 ft 11 in", "value", 3, "from", "ft", "to", "cm"), ErrorCode.INVALID_ARGUMENT),
