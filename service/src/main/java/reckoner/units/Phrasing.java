@@ -266,7 +266,13 @@ final class Phrasing {
     while (end > 0 && "?!.;: ".indexOf(s.charAt(end - 1)) >= 0) {
       end--;
     }
-    return s.substring(0, end);
+    String t = s.substring(0, end);
+    for (String polite : new String[] {" please", ", please", " pls"}) {
+      if (t.length() > polite.length() && t.regionMatches(true, t.length() - polite.length(), polite, 0, polite.length())) {
+        return stripEnd(t.substring(0, t.length() - polite.length()));
+      }
+    }
+    return t;
   }
 
   /** {@code 10kg->lb}: arrows and equals signs as separate words. */
