@@ -36,10 +36,6 @@ final class Resolver {
     this.caseIndex = SystemReadings.caseIndex(table);
   }
 
-  UnitTable table() {
-    return table;
-  }
-
   Map<String, List<SystemReadings.Spelling>> caseIndex() {
     return caseIndex;
   }
