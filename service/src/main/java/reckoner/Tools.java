@@ -11,6 +11,7 @@ import reckoner.search.SearchStore;
 import reckoner.search.SearchTool;
 import reckoner.tool.Tool;
 import reckoner.units.UnitsTool;
+import reckoner.units.UnitsToolV2;
 
 /** The tool versions this build serves, listed explicitly. A new version is one more line. */
 public final class Tools {
@@ -23,6 +24,7 @@ public final class Tools {
         new DatesTool(),
         new DatesToolV2(),
         new UnitsTool(),
+        new UnitsToolV2(),
         new FactsTool(facts),
         new SearchTool(search));
   }

@@ -175,7 +175,8 @@ public final class Invoker {
         throw CallContext.pastDeadline(limits.deadlineNanos());
       }
       Answer clean = new Answer(ResultText.clean(answer.text(), ResultText.DEFAULT_MAX_LENGTH),
-          answer.cacheable(), answer.clockReadAt(), answer.dataVersion());
+          answer.cacheable(), answer.clockReadAt(), answer.dataVersion(),
+          answer.note().map(n -> ResultText.clean(n, ResultText.DEFAULT_MAX_LENGTH)));
       if (Objects.equals(key.dataVersion(), clean.dataVersion().orElse(null))) { // a reload in between: don't keep it
         cache.put(key, clean);
       }

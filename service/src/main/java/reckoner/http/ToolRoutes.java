@@ -111,6 +111,7 @@ final class ToolRoutes {
     body.put("invocation_id", outcome.invocationId());
     answer.dataVersion().ifPresent(v -> body.put("data_version", v));
     answer.clockReadAt().ifPresent(t -> body.put("as_of", t.toString()));
+    answer.note().ifPresent(n -> body.put("reading", n));
     responses.json(ctx, 200, body);
   }
 

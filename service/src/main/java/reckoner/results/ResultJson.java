@@ -26,6 +26,7 @@ public final class ResultJson {
       node.put("cached", outcome.cached());
       a.dataVersion().ifPresent(v -> node.put("data_version", v));
       a.clockReadAt().ifPresent(t -> node.put("as_of", t.toString()));
+      a.note().ifPresent(n -> node.put("reading", n));
     } else {
       ToolError e = outcome.error().get();
       node.put("code", e.code().wireName());

@@ -267,6 +267,8 @@ public final class OpenApi {
     rp.putObject("data_version").put("type", "string").put("description", "Content digest of the data the answer came from");
     rp.putObject("as_of").put("type", "string").put("format", "date-time")
         .put("description", "Present when the server clock was read: the reference time used");
+    rp.putObject("reading").put("type", "string")
+        .put("description", "Present when the tool read a name by a default or by its context: which reading it took");
 
     ObjectNode problem = schemas.putObject("Problem");
     problem.put("type", "object");

@@ -51,6 +51,12 @@ final class Rounder {
     }
   }
 
+  /** {@code x} to within a relative 10^-(precision-3): pi expanded to enough digits. For an irrational {@code x} only. */
+  static BigDecimal approximate(Factor x, int precision) {
+    BigDecimal[] b = bounds(x, precision);
+    return b[0].add(b[1]).divide(BigDecimal.valueOf(2), new MathContext(precision + 5, RoundingMode.HALF_EVEN));
+  }
+
   /** An interval around {@code x} of relative width about 10^-(precision-3). */
   private static BigDecimal[] bounds(Factor x, int precision) {
     MathContext mc = new MathContext(precision + 5, RoundingMode.HALF_EVEN);

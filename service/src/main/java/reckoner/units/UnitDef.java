@@ -1,7 +1,9 @@
 package reckoner.units;
 
 import java.util.List;
+import java.util.Map;
 import java.util.Objects;
+import java.util.Optional;
 
 /**
  * One row of the unit table: a unit (or an ambiguous name standing for several) with its symbols,
@@ -19,10 +21,14 @@ import java.util.Objects;
  * @param definition the definition as written in the table
  * @param source where the definition is published
  * @param readings for an ambiguous name, the keys of the units it may mean; empty otherwise
+ * @param defaults for an ambiguous name, the reading it takes under a system ({@code us},
+ *     {@code imperial}, {@code metric}, or {@code all} for every system); empty when it has none
  */
 record UnitDef(String key, List<String> symbols, List<String> names, Dimension dimension, Factor factor,
     Rational offset, boolean interval, Prefix.Policy prefixes, String definition, String source,
-    List<String> readings) {
+    List<String> readings, Map<String, String> defaults) {
+  /** The system name under which a default applies to every system. */
+  static final String ALL_SYSTEMS = "all";
 
   UnitDef {
     Objects.requireNonNull(key, "key");
@@ -35,6 +41,13 @@ record UnitDef(String key, List<String> symbols, List<String> names, Dimension d
     Objects.requireNonNull(definition, "definition");
     Objects.requireNonNull(source, "source");
     readings = List.copyOf(readings);
+    defaults = Map.copyOf(defaults);
+  }
+
+  /** The reading (as in {@link #readings}) this ambiguous name takes under {@code system}, if any. */
+  Optional<String> defaultReading(String system) {
+    String r = defaults.get(system);
+    return Optional.ofNullable(r != null ? r : defaults.get(ALL_SYSTEMS));
   }
 
   boolean isAmbiguous() {

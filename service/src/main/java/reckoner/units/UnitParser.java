@@ -25,8 +25,46 @@ import reckoner.tool.ToolException;
  * Limits: 200 characters, 10 nested parentheses, exponents within ±12, every dimension
  * exponent within ±24 and every factor within 1e±600 ({@code limit_exceeded}). Not thread-safe;
  * one instance parses one expression.
+ *
+ * <p>How a word is read beyond the table's exact spellings is up to a {@link Readings}:
+ * {@code units@1} uses {@link Readings#STRICT} (an unknown word, an ambiguous name and an offset
+ * scale in a compound are refused); {@code units@2} reads case variants, default readings by
+ * system and offset scales in compounds as differences.
  */
 final class UnitParser {
+  /**
+   * How words are read where the table alone does not decide. Each method is asked only where
+   * {@link #STRICT} would refuse or keep the exact reading, so a strict parse is the parse of units@1.
+   */
+  interface Readings {
+    /** units@1: exact spellings only, every ambiguous name refused. */
+    Readings STRICT = new Readings() {};
+
+    /**
+     * Another reading of a word the table reads exactly ({@code F} as °F next to a temperature);
+     * {@code whole} says whether the word is the whole expression.
+     */
+    default UnitTable.Resolved exact(UnitTable.Resolved r, String written, boolean whole) throws ToolException {
+      return r;
+    }
+
+    /** A reading of a word the table does not know ({@code KM}); empty to refuse it as unknown. */
+    default Optional<UnitTable.Resolved> unknown(String written, boolean whole) throws ToolException {
+      return Optional.empty();
+    }
+
+    /** The reading an ambiguous name takes; empty to refuse it, listing its readings. */
+    default Optional<UnitTable.Resolved> ambiguous(UnitTable.Resolved r, String written, boolean whole)
+        throws ToolException {
+      return Optional.empty();
+    }
+
+    /** Whether an offset scale (°C, °F) inside a compound is read as a difference (1 °C = 1 K). */
+    default boolean offsetInCompound(UnitDef scale) {
+      return false;
+    }
+  }
+
   static final int MAX_LENGTH = 200;
   static final int MAX_DEPTH = 10;
   static final int MAX_EXPONENT = 12;
@@ -37,6 +75,7 @@ final class UnitParser {
   private final String text;
   private final String original;
   private final UnitTable table;
+  private final Readings readings;
   private int pos;
   private int depth;
   private boolean inParenthesizedExponent;
@@ -48,19 +87,25 @@ final class UnitParser {
     }
   }
 
-  private UnitParser(String original, UnitTable table) {
+  private UnitParser(String original, UnitTable table, Readings readings) {
     this.original = original;
     this.text = Words.normalize(original);
     this.table = table;
+    this.readings = readings;
   }
 
   /** Parses {@code expression} against {@code table}; bad input is a ToolException with its code. */
   static Unit parse(String expression, UnitTable table) throws ToolException {
+    return parse(expression, table, Readings.STRICT);
+  }
+
+  /** Parses {@code expression} against {@code table}, reading words as {@code readings} says. */
+  static Unit parse(String expression, UnitTable table, Readings readings) throws ToolException {
     if (expression.length() > MAX_LENGTH) {
       throw new ToolException(ErrorCode.LIMIT_EXCEEDED, "a unit expression may have at most " + MAX_LENGTH
           + " characters but this one has " + expression.length());
     }
-    UnitParser p = new UnitParser(expression, table);
+    UnitParser p = new UnitParser(expression, table, readings);
     if (p.text.isEmpty()) {
       throw new ToolException(ErrorCode.INVALID_ARGUMENT, "the unit is empty");
     }
@@ -220,8 +265,9 @@ final class UnitParser {
     Optional<UnitTable.PhraseMatch> phrase = table.phrase(text, pos);
     if (phrase.isPresent()) {
       String word = text.substring(pos, phrase.get().end());
+      boolean whole = pos == 0 && phrase.get().end() == text.length();
       pos = phrase.get().end();
-      return term(phrase.get().resolved(), word);
+      return term(readings.exact(phrase.get().resolved(), word, whole), word, whole);
     }
     char c = text.charAt(pos);
     if (c == '(') {
@@ -236,7 +282,7 @@ final class UnitParser {
       }
       pos++;
       depth--;
-      return inner.combined(checkAffine(inner).unit);
+      return inner.combined(checkAffine(inner, false).unit);
     }
     if (isDigit(c) || (c == '.' && pos + 1 < text.length() && isDigit(text.charAt(pos + 1)))) {
       return number();
@@ -253,9 +299,10 @@ final class UnitParser {
       pos++;
     }
     String w = text.substring(start, pos);
+    boolean whole = start == 0 && pos == text.length();
     Optional<UnitTable.Resolved> exact = table.resolve(w);
     if (exact.isPresent()) {
-      return term(exact.get(), w);
+      return term(readings.exact(exact.get(), w, whole), w, whole);
     }
     int stem = w.length();
     while (stem > 0 && isDigit(w.charAt(stem - 1))) {
@@ -263,11 +310,20 @@ final class UnitParser {
     }
     if (stem < w.length()) {
       pos = start + stem; // m2, cm3: the digits are the exponent
-      Optional<UnitTable.Resolved> r = table.resolve(w.substring(0, stem));
+      String base = w.substring(0, stem);
+      Optional<UnitTable.Resolved> r = table.resolve(base);
       if (r.isPresent()) {
-        return term(r.get(), w.substring(0, stem));
+        return term(readings.exact(r.get(), base, false), base, false);
       }
-      throw unknown(w.substring(0, stem));
+      Optional<UnitTable.Resolved> other = stem == 0 ? Optional.empty() : readings.unknown(base, false);
+      if (other.isPresent()) {
+        return term(other.get(), base, false);
+      }
+      throw unknown(base);
+    }
+    Optional<UnitTable.Resolved> other = readings.unknown(w, whole);
+    if (other.isPresent()) {
+      return term(other.get(), w, whole);
     }
     throw unknown(w);
   }
@@ -277,15 +333,21 @@ final class UnitParser {
     if (r.isEmpty()) {
       throw unknown(w);
     }
-    return term(r.get(), w);
+    boolean whole = text.length() == w.length();
+    return term(readings.exact(r.get(), w, whole), w, whole);
   }
 
-  private Term term(UnitTable.Resolved r, String written) throws ToolException {
+  private Term term(UnitTable.Resolved r, String written, boolean whole) throws ToolException {
     UnitDef def = r.def();
     if (def.isAmbiguous()) {
-      throw new ToolException(new ToolError(ErrorCode.AMBIGUOUS_UNIT,
-          "'" + clip(written) + "' is ambiguous: " + table.describeReadings(def, r.prefix()),
-          table.readingSymbols(def, r.prefix())));
+      Optional<UnitTable.Resolved> chosen = readings.ambiguous(r, written, whole);
+      if (chosen.isEmpty()) {
+        throw new ToolException(new ToolError(ErrorCode.AMBIGUOUS_UNIT,
+            "'" + clip(written) + "' is ambiguous: " + table.describeReadings(def, r.prefix()),
+            table.readingSymbols(def, r.prefix())));
+      }
+      r = chosen.get();
+      def = r.def();
     }
     Factor f = def.factor();
     if (r.prefix() != null) {
@@ -343,8 +405,8 @@ final class UnitParser {
   // ---- combining ------------------------------------------------------------------------------
 
   private Term combine(Term left, Term right, boolean divide) throws ToolException {
-    checkAffine(left);
-    checkAffine(right);
+    checkAffine(left, true);
+    checkAffine(right, true);
     Unit a = left.unit;
     Unit b = right.unit;
     Dimension d = divide ? a.dimension().divide(b.dimension()) : a.dimension().times(b.dimension());
@@ -358,7 +420,7 @@ final class UnitParser {
     if (exponent == 1) {
       return base;
     }
-    checkAffine(base);
+    checkAffine(base, true);
     Unit u = base.unit;
     Dimension d = u.dimension().pow(exponent);
     checkDimension(d);
@@ -369,8 +431,11 @@ final class UnitParser {
     return new Term(Unit.of(u.factor().pow(exponent), d), null);
   }
 
-  private Term checkAffine(Term t) throws ToolException {
+  private Term checkAffine(Term t, boolean compound) throws ToolException {
     if (t.bare != null && t.bare.hasOffset()) {
+      if (compound && readings.offsetInCompound(t.bare)) {
+        return t; // the factor alone is the difference: 1 °C = 1 K, 1 °F = 5/9 K
+      }
       String s = t.bare.shownSymbol();
       throw new ToolException(ErrorCode.INVALID_ARGUMENT, s + " is a temperature scale with an offset and cannot be"
           + " part of a compound unit; use K, °R or a difference unit (Δ" + s + ") in '" + clip(original) + "'");

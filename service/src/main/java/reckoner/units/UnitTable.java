@@ -19,18 +19,21 @@ import java.util.regex.Pattern;
 import reckoner.tool.ToolException;
 
 /**
- * The unit table of {@code units@1}, read once from {@code units/units-1.tsv} on the classpath.
- * The file is part of the tool's version: a change to it that changes an answer is a new version.
+ * A unit table: {@code units@1} reads {@code units/units-1.tsv} and {@code units@2} reads
+ * {@code units/units-2.tsv} from the classpath, each once. The file is part of the tool's version:
+ * a change to it that changes an answer is a new version.
  *
  * <p>Each row is {@code key, symbols, names, dimension, definition, prefixes, source}, separated
  * by tabs. A definition is a base ({@code =L}), an exact literal and a unit expression over rows
  * above it ({@code 0.0254 m}, {@code 5/9 K; offset 459.67}), or {@code one of: k1 k2} for an
- * ambiguous name. A row whose computed dimension differs from its dimension column, a symbol or
+ * ambiguous name, optionally followed by default readings by system ({@code ; us=k1; imperial=k2}
+ * or {@code ; all=k1}; units@2 reads them). A row whose computed dimension differs from its dimension column, a symbol or
  * name used twice, or a malformed row stops the load, naming the line. Immutable once loaded;
  * thread-safe.
  */
 final class UnitTable {
   static final String RESOURCE = "units/units-1.tsv";
+  static final String RESOURCE_2 = "units/units-2.tsv";
   /** The dimension column of an ambiguous row whose readings differ in dimension (pint or point). */
   static final String MIXED = "mixed";
   private static final Pattern LITERAL = Pattern.compile(
@@ -66,8 +69,17 @@ final class UnitTable {
     return Holder.STANDARD;
   }
 
+  /** The table of {@code units@2}. */
+  static UnitTable version2() {
+    return Holder2.VERSION_2;
+  }
+
   private static final class Holder {
     static final UnitTable STANDARD = load(RESOURCE);
+  }
+
+  private static final class Holder2 {
+    static final UnitTable VERSION_2 = load(RESOURCE_2);
   }
 
   static UnitTable load(String resource) {
@@ -125,9 +137,18 @@ final class UnitTable {
     }
     UnitDef def;
     if (definition.startsWith("one of:")) {
-      List<String> readings = List.of(definition.substring("one of:".length()).trim().split(" +"));
+      String[] parts = definition.substring("one of:".length()).split(";");
+      List<String> readings = List.of(parts[0].trim().split(" +"));
+      Map<String, String> defaults = new LinkedHashMap<>();
+      for (int i = 1; i < parts.length; i++) {
+        String[] kv = parts[i].trim().split("=", -1);
+        if (kv.length != 2 || !readings.contains(kv[1].trim()) || defaults.put(kv[0].trim(), kv[1].trim()) != null) {
+          throw new IllegalArgumentException("a default must be 'system=reading' naming one of the row's readings: '"
+              + parts[i].trim() + "'");
+        }
+      }
       def = new UnitDef(key, symbols, names, stated, Factor.ONE, Rational.ZERO, false, prefixes, definition, source,
-          readings);
+          readings, defaults);
       ambiguous.add(new String[] {key, where, mixed ? MIXED : ""});
     } else if (mixed) {
       throw new IllegalArgumentException("only an ambiguous row may have readings of mixed dimensions");
@@ -178,7 +199,8 @@ final class UnitTable {
     if (factor.coefficient().signum() <= 0) {
       throw new IllegalArgumentException("a unit's factor must be positive");
     }
-    return new UnitDef(key, symbols, names, dimension, factor, offset, interval, prefixes, definition, source, List.of());
+    return new UnitDef(key, symbols, names, dimension, factor, offset, interval, prefixes, definition, source, List.of(),
+        Map.of());
   }
 
   /** {@code 0.0254}, {@code 5/9}, {@code pi/180}, {@code 648000/pi}: products and quotients of decimals and pi. */
@@ -431,6 +453,41 @@ final class UnitTable {
     String symbol = r.symbol(outer);
     UnitDef d = bySymbol.get(symbol);
     return d != null && d.isAmbiguous() ? r.name(outer) : symbol;
+  }
+
+  // ---- version 2: readings of ambiguous rows ------------------------------------------------------
+
+  /** The readings of an ambiguous row as resolved words, with the outer prefix applied. */
+  List<Resolved> readingsOf(UnitDef ambiguous, Prefix outer) {
+    List<Resolved> out = new ArrayList<>();
+    for (String spec : ambiguous.readings()) {
+      out.add(resolvedOf(reading(spec), outer));
+    }
+    return out;
+  }
+
+  /** The reading an ambiguous row takes under {@code system}, if it names one. */
+  Optional<Resolved> defaultReading(UnitDef ambiguous, Prefix outer, String system) {
+    return ambiguous.defaultReading(system).map(spec -> resolvedOf(reading(spec), outer));
+  }
+
+  private static Resolved resolvedOf(Reading r, Prefix outer) {
+    return new Resolved(r.def, r.prefix != null ? r.prefix : outer);
+  }
+
+  /** A resolved word's name in words: {@code US cup}, {@code kilometre}. */
+  String nameOf(Resolved r) {
+    return new Reading(null, r.def()).name(r.prefix());
+  }
+
+  /** How a resolved word is written so that it parses as itself: {@code cup_us}, {@code km}. */
+  String symbolOf(Resolved r) {
+    return written(new Reading(null, r.def()), r.prefix());
+  }
+
+  /** Every case-sensitive symbol with its row, ambiguous rows included. */
+  Map<String, UnitDef> symbols() {
+    return Collections.unmodifiableMap(bySymbol);
   }
 
   /** Symbols that are also a prefix before another symbol; the exact symbol wins. For review in tests. */
