@@ -2,6 +2,7 @@ package reckoner;
 
 import java.util.List;
 import reckoner.arith.ArithTool;
+import reckoner.arith.ArithToolV2;
 import reckoner.dates.DatesTool;
 import reckoner.facts.FactLoadException;
 import reckoner.facts.FactSource;
@@ -18,6 +19,7 @@ public final class Tools {
   public static List<Tool> standard(FactStore facts) {
     return List.of(
         new ArithTool(),
+        new ArithToolV2(),
         new DatesTool(),
         new UnitsTool(),
         new FactsTool(facts));
