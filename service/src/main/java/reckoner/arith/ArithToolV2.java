@@ -194,7 +194,9 @@ public final class ArithToolV2 implements Tool {
     String text = expr;
     PhraseParser.UnknownWord u = first;
     for (int attempt = 0; attempt < 5; attempt++) {
-      text = text.substring(0, u.start) + " " + text.substring(u.end);
+      String word = text.substring(u.start, u.end);
+      // "a 15% tip on $60": without the unknown noun, "on" says what "of" says.
+      text = text.substring(0, u.start) + (word.equalsIgnoreCase("on") ? " of " : " ") + text.substring(u.end);
       try {
         return List.of(Canonical.print(PhraseParser.parse(text, PhraseParser.MAX_LENGTH,
             PhraseParser.Readings.refuseAll()).expr()));

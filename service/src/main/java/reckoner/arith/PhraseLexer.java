@@ -109,6 +109,11 @@ final class PhraseLexer {
         i++;
         continue;
       }
+      if (c == '/' && i + 1 < n && text.charAt(i + 1) == '/') {
+        out.add(new Lexeme(Kind.SYMBOL, "//", null, 0, i, i + 2));
+        i += 2;
+        continue;
+      }
       if (c == '*' && i + 1 < n && text.charAt(i + 1) == '*') {
         out.add(new Lexeme(Kind.SYMBOL, "^", null, 0, i, i + 2));
         i += 2;

@@ -133,12 +133,15 @@ final class PhraseParser {
       Map.entry("arcsin", Fn.ASIN), Map.entry("arccos", Fn.ACOS), Map.entry("arctan", Fn.ATAN),
       Map.entry("floor", Fn.FLOOR), Map.entry("ceil", Fn.CEIL), Map.entry("ceiling", Fn.CEIL), Map.entry("trunc", Fn.TRUNC),
       Map.entry("max", Fn.MAX), Map.entry("min", Fn.MIN), Map.entry("rem", Fn.REM), Map.entry("gcd", Fn.GCD),
-      Map.entry("lcm", Fn.LCM), Map.entry("root", Fn.ROOT));
+      Map.entry("lcm", Fn.LCM), Map.entry("root", Fn.ROOT), Map.entry("int", Fn.TRUNC), Map.entry("fabs", Fn.ABS),
+      Map.entry("fmod", Fn.REM));
   /** Names of functions spelled as English words, which take "of". */
   private static final Map<String, Fn> FUNCTION_WORDS = Map.ofEntries(
       Map.entry("sine", Fn.SIN), Map.entry("cosine", Fn.COS), Map.entry("tangent", Fn.TAN),
       Map.entry("logarithm", Fn.LOG10), Map.entry("maximum", Fn.MAX), Map.entry("minimum", Fn.MIN));
   private static final Set<String> LIST_WORDS = Set.of("sum", "product", "average", "mean", "avg", "total");
+  private static final Set<String> LIST_FUNCTIONS = Set.of("sum", "product", "average", "mean", "avg", "total", "max", "min",
+      "gcd", "lcm");
   /** Leading words that ask for a result and say nothing about it. */
   private static final List<List<String>> LEADING_FILLER = List.of(
       List.of("what", "is"), List.of("what's"), List.of("whats"), List.of("what", "are"), List.of("what", "does"),
@@ -148,11 +151,11 @@ final class PhraseParser {
       List.of("can", "you"), List.of("could", "you"), List.of("would", "you"), List.of("will", "you"),
       List.of("tell", "me"), List.of("give", "me"), List.of("show", "me"), List.of("i", "need"), List.of("i", "want"),
       List.of("value", "of"), List.of("result", "of"), List.of("answer", "to"), List.of("answer", "of"),
-      List.of("hey"), List.of("ok"), List.of("okay"), List.of("quick", "question"), List.of("quickly"));
+      List.of("hey"), List.of("ok"), List.of("okay"), List.of("quick", "question"), List.of("quickly"), List.of("convert"));
   private static final List<List<String>> TRAILING_FILLER = List.of(
       List.of("is", "equal", "to"), List.of("equal", "to"), List.of("equals"), List.of("equal"),
       List.of("please"), List.of("for", "me"), List.of("exactly"), List.of("?"), List.of("."), List.of("="),
-      List.of(";"), List.of("…"), List.of("!", "!"));
+      List.of(";"), List.of("…"), List.of("thanks"), List.of("thank", "you"), List.of("thx"), List.of("is"), List.of("are"));
   private static final Set<String> CURRENCIES = Set.of("$", "€", "£", "¥", "₹");
 
   private final String text;
@@ -206,6 +209,12 @@ final class PhraseParser {
           changed = true;
         }
       }
+      // "tell me what 15 times 15 is": a bare "what" before the expression (not "what percent").
+      if (from + 1 < to && toks.get(from).isWord("what") && !toks.get(from + 1).isWord("percent")
+          && !toks.get(from + 1).isWord("percentage")) {
+        from++;
+        changed = true;
+      }
       while (from < to && (toks.get(from).isSymbol("=") || toks.get(from).isSymbol(":") || toks.get(from).isSymbol(","))) {
         from++;
         changed = true;
@@ -215,7 +224,7 @@ final class PhraseParser {
     while (changed) {
       changed = false;
       for (List<String> f : TRAILING_FILLER) {
-        if (to - f.size() > from && matches(to - f.size(), to, f) && !(f.get(0).equals("!"))) {
+        if (to - f.size() > from && matches(to - f.size(), to, f)) {
           to -= f.size();
           changed = true;
         }
@@ -559,6 +568,13 @@ final class PhraseParser {
           return binary(Op.MUL, 1);
         case "/":
           return binary(Op.DIV, 1);
+        case "//":
+          return new Infix(MULTIPLICATIVE, 1, null, false) {
+            @Override
+            Node apply(Node left) throws ToolException, Ambiguous, UnknownWord {
+              return Call.of(Fn.FLOOR, new Bin(Op.DIV, left, expression(MULTIPLICATIVE))); // Python's floor division
+            }
+          };
         case "^":
           return binary(Op.POW, 1);
         case "%":
@@ -583,6 +599,16 @@ final class PhraseParser {
       return postfix(1, x -> new Bin(Op.POW, x, exponent));
     }
     if (t.kind() == Kind.NUMBER) {
+      if (isMixedNumber(left)) {
+        return new Infix(POSTFIX, 3, null, false) {
+          @Override
+          Node apply(Node whole) {
+            Lexeme n = toks.get(pos - 3);
+            Lexeme d = toks.get(pos - 1);
+            return new Bin(Op.ADD, whole, new Bin(Op.DIV, new Num(n.value()), new Num(d.value())));
+          }
+        };
+      }
       throw twoNumbers(left, t);
     }
     if (t.kind() == Kind.FRACTION) {
@@ -678,20 +704,48 @@ final class PhraseParser {
         }
       };
     }
-    if ((wordsAt(pos, "as", "a", "percentage") || wordsAt(pos, "as", "a", "percent")) && pos + 3 == end
-        || wordsAt(pos, "in", "percent") && pos + 2 == end) {
-      int width = t.isWord("in") ? 2 : 3;
-      return new Infix(WHOLE, width, null, false) {
-        @Override
-        Node apply(Node l) {
-          return new Bin(Op.MUL, l, Num.of(100));
-        }
-      };
+    for (String[] suffix : new String[][] {{"as", "a", "percentage"}, {"as", "a", "percent"}, {"to", "a", "percentage"},
+        {"to", "a", "percent"}, {"in", "percent"}, {"as", "percent"}, {"to", "percent"}, {"as", "percentage"}}) {
+      if (wordsAt(pos, suffix) && pos + suffix.length == end) {
+        return new Infix(WHOLE, suffix.length, null, false) {
+          @Override
+          Node apply(Node l) {
+            return new Bin(Op.MUL, l, Num.of(100));
+          }
+        };
+      }
+    }
+    for (String[] suffix : new String[][] {{"as", "a", "decimal"}, {"to", "a", "decimal"}, {"in", "decimal"}, {"as", "decimal"},
+        {"as", "a", "decimal", "number"}, {"as", "a", "number"}}) {
+      if (wordsAt(pos, suffix) && pos + suffix.length == end) {
+        return new Infix(WHOLE, suffix.length, null, false) {
+          @Override
+          Node apply(Node l) {
+            return l;
+          }
+        };
+      }
     }
     if (startsOperand(t)) {
       return implicitProduct();
     }
     return null;
+  }
+
+  /** {@code 1 1/2}: a whole number, a space, and a proper fraction of whole numbers written with '/'. */
+  private boolean isMixedNumber(Node left) {
+    if (!(left instanceof Num) || pos + 2 >= end || !isDigits(toks.get(pos - 1)) || !isDigits(toks.get(pos))
+        || !toks.get(pos + 1).isSymbol("/") || !isDigits(toks.get(pos + 2)) || !adjacent(pos, pos + 1) || !adjacent(pos + 1, pos + 2)) {
+      return false;
+    }
+    BigDecimal n = toks.get(pos).value();
+    BigDecimal d = toks.get(pos + 2).value();
+    boolean followedByOperand = pos + 3 < end && (toks.get(pos + 3).isSymbol("/") || toks.get(pos + 3).isSymbol("^"));
+    return d.compareTo(BigDecimal.ONE) > 0 && n.signum() > 0 && n.compareTo(d) < 0 && !followedByOperand;
+  }
+
+  private static boolean isDigits(Lexeme l) {
+    return l.kind() == Kind.NUMBER && l.text().chars().allMatch(ch -> ch >= '0' && ch <= '9');
   }
 
   private Infix implicitProduct() {
@@ -910,10 +964,11 @@ final class PhraseParser {
     }
     Node node = new Num(value);
     // Scale words: 2.5 million, 3 thousand.
-    while (pos < end && toks.get(pos).kind() == Kind.WORD
-        && (SCALES.containsKey(toks.get(pos).text()) || toks.get(pos).text().equals("hundred"))) {
-      int exponent = toks.get(pos).text().equals("hundred") ? 2 : SCALES.get(toks.get(pos).text());
-      value = value.scaleByPowerOfTen(exponent);
+    while (pos < end && toks.get(pos).kind() == Kind.WORD && (SCALES.containsKey(toks.get(pos).text())
+        || toks.get(pos).text().equals("hundred") || toks.get(pos).text().equals("dozen"))) {
+      String scale = toks.get(pos).text();
+      value = scale.equals("dozen") ? value.multiply(BigDecimal.valueOf(12))
+          : value.scaleByPowerOfTen(scale.equals("hundred") ? 2 : SCALES.get(scale));
       node = new Num(value);
       pos++;
     }
@@ -1020,6 +1075,13 @@ final class PhraseParser {
         return new Node.Factorial(functionOperand(t, false));
       case "pow", "power":
         return powCall(t);
+      case "comb":
+        return combCall(t);
+      case "math":
+        if (pos + 2 < end && toks.get(pos + 1).isSymbol(".") && adjacent(pos, pos + 1) && toks.get(pos + 2).kind() == Kind.WORD) {
+          return libraryName(toks.get(pos + 2));
+        }
+        break;
       case "mod":
         return modCall(t);
       case "log", "logarithm":
@@ -1072,7 +1134,7 @@ final class PhraseParser {
   private Node article(Lexeme t) throws ToolException, UnknownWord {
     if (pos + 1 < end && toks.get(pos + 1).kind() == Kind.WORD) {
       String next = toks.get(pos + 1).text();
-      if (next.equals("hundred") || SCALES.containsKey(next)) {
+      if (next.equals("hundred") || next.equals("dozen") || SCALES.containsKey(next)) {
         pos++;
         return numberWords();
       }
@@ -1100,6 +1162,8 @@ final class PhraseParser {
         current = current.add(BigDecimal.valueOf(small));
       } else if (w.equals("hundred")) {
         current = (current.signum() == 0 ? BigDecimal.ONE : current).scaleByPowerOfTen(2);
+      } else if (w.equals("dozen")) {
+        current = (current.signum() == 0 ? BigDecimal.ONE : current).multiply(BigDecimal.valueOf(12));
       } else if (SCALES.containsKey(w)) {
         total = total.add((current.signum() == 0 ? BigDecimal.ONE : current).scaleByPowerOfTen(SCALES.get(w)));
         current = BigDecimal.ZERO;
@@ -1450,6 +1514,68 @@ final class PhraseParser {
         + "; write 2 ^ 10, 2 ** 10 or 2 to the power of 10", t.start(), t.end());
   }
 
+  /** comb(n, k): n choose k, as Python's math.comb. */
+  private Node combCall(Lexeme t) throws ToolException, Ambiguous, UnknownWord {
+    pos++;
+    if (pos < end && toks.get(pos).isSymbol("(")) {
+      List<Node> args = arguments(t);
+      if (args.size() == 2) {
+        return new Bin(Op.CHOOSE, args.get(0), args.get(1));
+      }
+    }
+    throw syntax("comb takes two arguments: comb(10, 3)", t);
+  }
+
+  /**
+   * A name after {@code math.} (Python's math module, JavaScript's Math object): those libraries'
+   * meanings, so math.log is the natural logarithm and math.log(x, b) has the base second.
+   */
+  private Node libraryName(Lexeme name) throws ToolException, Ambiguous, UnknownWord {
+    pos += 2;
+    switch (name.text()) {
+      case "pi":
+        pos++;
+        return new Node.Const("pi");
+      case "e":
+        pos++;
+        return new Node.Const("e");
+      case "log": {
+        pos++;
+        if (pos < end && toks.get(pos).isSymbol("(")) {
+          List<Node> args = arguments(name);
+          if (args.size() == 1) {
+            return Call.of(Fn.LN, args.get(0));
+          }
+          if (args.size() == 2) {
+            return Call.of(Fn.LOG_BASE, args.get(0), args.get(1));
+          }
+        }
+        throw syntax("math.log takes one argument (natural) or two (x, base)", name);
+      }
+      case "radians": {
+        pos++;
+        List<Node> args = arguments(name);
+        if (args.size() == 1) {
+          return new Node.Degrees(args.get(0));
+        }
+        throw syntax("math.radians takes one argument", name);
+      }
+      case "degrees": {
+        pos++;
+        List<Node> args = arguments(name);
+        if (args.size() == 1) {
+          return new Bin(Op.DIV, new Bin(Op.MUL, args.get(0), Num.of(180)), new Node.Const("pi"));
+        }
+        throw syntax("math.degrees takes one argument", name);
+      }
+      case "factorial", "pow", "comb", "sqrt", "cbrt", "exp", "sin", "cos", "tan", "asin", "acos", "atan", "floor",
+          "ceil", "trunc", "log10", "log2", "gcd", "lcm", "fabs", "abs", "fmod", "max", "min":
+        return wordPrefix(name);
+      default:
+        throw new UnknownWord("unknown name 'math." + name.text() + "' at position " + position(name), name.start(), name.end());
+    }
+  }
+
   /** mod(a, b): a mod b, floored as the infix mod. */
   private Node modCall(Lexeme t) throws ToolException, Ambiguous, UnknownWord {
     pos++;
@@ -1533,6 +1659,15 @@ final class PhraseParser {
       throw new ToolException(ErrorCode.LIMIT_EXCEEDED, "parentheses nest deeper than " + MAX_DEPTH + " levels");
     }
     pos++;
+    // sum([1, 2, 3]), max([3, 7]): a list written as one bracketed argument, as in Python.
+    boolean bracketed = false;
+    if (LIST_FUNCTIONS.contains(name.text()) && pos < end && toks.get(pos).isSymbol("(")) {
+      int close = matchingParen(pos, end);
+      if (close > 0 && close + 1 < end && toks.get(close + 1).isSymbol(")")) {
+        bracketed = true;
+        pos++;
+      }
+    }
     boolean call = inCallArguments;
     boolean list = inWordList;
     inCallArguments = true;
@@ -1551,6 +1686,9 @@ final class PhraseParser {
     }
     inCallArguments = call;
     inWordList = list;
+    if (bracketed) {
+      expectSymbol(")", "a closing ']'", open);
+    }
     expectSymbol(")", "a closing ')'", open);
     parenDepth--;
     lastGroupEnd = pos;
