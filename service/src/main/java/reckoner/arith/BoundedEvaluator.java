@@ -256,8 +256,9 @@ final class BoundedEvaluator {
 
   private Bounds call(Node.Call c) throws ToolException, Undecided {
     Fn fn = c.fn();
-    if (fn.isTrigonometric() && c.args().get(0) instanceof Node.Degrees d) {
-      Bounds deg = evaluate(d.x());
+    Node degrees = fn.isTrigonometric() ? Node.Degrees.amount(c.args().get(0)) : null;
+    if (degrees != null) {
+      Bounds deg = evaluate(degrees);
       if (deg.isPoint()) {
         try {
           return of(RealFunctions.trigDegrees(fn, Rational.of(deg.lo())));

@@ -44,8 +44,9 @@ final class ExactEvaluator {
       return evaluate(d.x()).multiply(RealFunctions.constant("pi")).divide(ONE_EIGHTY);
     }
     if (node instanceof Node.Call c) {
-      if (c.fn().isTrigonometric() && c.args().get(0) instanceof Node.Degrees d) {
-        return RealFunctions.trigDegrees(c.fn(), evaluate(d.x()));
+      Node degrees = c.fn().isTrigonometric() ? Node.Degrees.amount(c.args().get(0)) : null;
+      if (degrees != null) {
+        return RealFunctions.trigDegrees(c.fn(), evaluate(degrees));
       }
       List<Rational> args = new ArrayList<>(c.args().size());
       for (Node a : c.args()) {

@@ -73,6 +73,26 @@ sealed interface Node {
     public Degrees {
       Objects.requireNonNull(x, "x");
     }
+
+    /**
+     * The angle in degrees that {@code angle} is written as — x°, -x°, and sums and differences
+     * of such — or null when it is not written in degrees.
+     */
+    static Node amount(Node angle) {
+      if (angle instanceof Degrees d) {
+        return d.x();
+      }
+      if (angle instanceof Neg n) {
+        Node inner = amount(n.x());
+        return inner == null ? null : new Neg(inner);
+      }
+      if (angle instanceof Bin b && (b.op() == Op.ADD || b.op() == Op.SUB)) {
+        Node l = amount(b.left());
+        Node r = amount(b.right());
+        return l == null || r == null ? null : new Bin(b.op(), l, r);
+      }
+      return null;
+    }
   }
 
   record Call(Fn fn, List<Node> args) implements Node {
