@@ -31,7 +31,7 @@ public final class ArithToolV2 implements Tool {
   private static final int CANONICAL_MAX_LENGTH = 20_000;
   /** Working precisions of the bounded evaluation, in significant digits; the last is the limit. */
   private static final int FIRST_PRECISION = 50;
-  static final int MAX_PRECISION = 10_100;
+  static final int MAX_PRECISION = 2_000;
 
   @Override
   public ToolId id() {

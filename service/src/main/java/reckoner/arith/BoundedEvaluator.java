@@ -145,7 +145,7 @@ final class BoundedEvaluator {
         hi = hi == null || u.compareTo(hi) > 0 ? u : hi;
       }
     }
-    return checked(new Bounds(lo, hi));
+    return new Bounds(lo, hi);
   }
 
   private Bounds divide(Bounds a, Bounds b) throws ToolException, Undecided {
@@ -155,6 +155,11 @@ final class BoundedEvaluator {
       }
       throw new Undecided();
     }
+    return checked(quotient(a, b));
+  }
+
+  /** a / b for b not containing zero, without the range check. */
+  private Bounds quotient(Bounds a, Bounds b) {
     if (a.isPoint() && a.lo().signum() == 0) {
       return a;
     }
@@ -173,7 +178,7 @@ final class BoundedEvaluator {
         hi = hi == null || u.compareTo(hi) > 0 ? u : hi;
       }
     }
-    return checked(new Bounds(lo, hi));
+    return new Bounds(lo, hi);
   }
 
   /** a - b * q with q the floored or truncated quotient, when q is the same across the bounds. */
@@ -181,7 +186,10 @@ final class BoundedEvaluator {
     if (b.isPoint() && b.lo().signum() == 0) {
       throw new ToolException(ErrorCode.DOMAIN_ERROR, "modulo by zero");
     }
-    Bounds q = divide(a, b);
+    if (b.signum() == 0) {
+      throw new Undecided();
+    }
+    Bounds q = quotient(a, b); // not a value of the expression: no range check
     RoundingMode mode = floor ? RoundingMode.FLOOR : RoundingMode.DOWN;
     BigDecimal qLo = q.lo().setScale(0, mode);
     BigDecimal qHi = q.hi().setScale(0, mode);

@@ -19,13 +19,14 @@ import reckoner.tool.ToolException;
 
 /**
  * Reads an arith@2 phrase — an expression, possibly with the words people and models put around
- * and inside it — into an expression tree and the rounding the phrase asks for. A precedence
- * climbing parser over {@link PhraseLexer} lexemes; see {@code tool-specs/arith/2.json} for the
- * grammar. A phrase with two readings is refused ({@link Ambiguous}) unless the caller picks one
+ * and inside it — into an expression tree and the rounding the phrase asks for. {@link PhraseFrame}
+ * takes the words around the expression off, this class is a precedence climbing parser over the
+ * rest, and {@link WordPhrases} reads the constructs written in words; see
+ * {@code tool-specs/arith/2.json} for the grammar. A phrase with two readings is refused ({@link Ambiguous}) unless the caller picks one
  * through {@link Readings}, which is how the tool prints both readings for the error. Not
  * thread-safe; one instance parses one text.
  */
-final class PhraseParser {
+final class PhraseParser extends WordPhrases {
   /** The kinds of ambiguity the parser refuses to settle silently. */
   enum Ambiguity {
     /** {@code 6/2(1+2)}: FIRST (6/2)*(1+2), SECOND 6/(2*(1+2)). */
@@ -96,34 +97,6 @@ final class PhraseParser {
   static final int MAX_LENGTH = 1000;
   static final int MAX_DEPTH = 50;
 
-  private static final int ADDITIVE = 10;
-  private static final int MULTIPLICATIVE = 20;
-  private static final int PREFIX = 30;
-  private static final int POWER = 40;
-  private static final int POSTFIX = 50;
-  /** "as a percentage" applies to everything before it. */
-  private static final int WHOLE = 1;
-
-  private static final Map<String, Integer> SMALL_NUMBERS = Map.ofEntries(
-      Map.entry("zero", 0), Map.entry("one", 1), Map.entry("two", 2), Map.entry("three", 3), Map.entry("four", 4),
-      Map.entry("five", 5), Map.entry("six", 6), Map.entry("seven", 7), Map.entry("eight", 8), Map.entry("nine", 9),
-      Map.entry("ten", 10), Map.entry("eleven", 11), Map.entry("twelve", 12), Map.entry("thirteen", 13),
-      Map.entry("fourteen", 14), Map.entry("fifteen", 15), Map.entry("sixteen", 16), Map.entry("seventeen", 17),
-      Map.entry("eighteen", 18), Map.entry("nineteen", 19), Map.entry("twenty", 20), Map.entry("thirty", 30),
-      Map.entry("forty", 40), Map.entry("fifty", 50), Map.entry("sixty", 60), Map.entry("seventy", 70),
-      Map.entry("eighty", 80), Map.entry("ninety", 90));
-  private static final Map<String, Integer> SCALES = Map.of("thousand", 3, "million", 6, "billion", 9, "trillion", 12);
-  /** Fraction words after a count: "two thirds", "a quarter". */
-  private static final Map<String, Integer> FRACTION_WORDS = Map.ofEntries(
-      Map.entry("half", 2), Map.entry("halves", 2), Map.entry("third", 3), Map.entry("thirds", 3),
-      Map.entry("quarter", 4), Map.entry("quarters", 4), Map.entry("fourth", 4), Map.entry("fourths", 4),
-      Map.entry("fifth", 5), Map.entry("fifths", 5), Map.entry("sixth", 6), Map.entry("sixths", 6),
-      Map.entry("seventh", 7), Map.entry("sevenths", 7), Map.entry("eighth", 8), Map.entry("eighths", 8),
-      Map.entry("ninth", 9), Map.entry("ninths", 9), Map.entry("tenth", 10), Map.entry("tenths", 10),
-      Map.entry("hundredth", 100), Map.entry("hundredths", 100), Map.entry("thousandth", 1000), Map.entry("thousandths", 1000));
-  /** Ordinal words before "root": "fourth root of 16". */
-  private static final Map<String, Integer> ORDINAL_WORDS = Map.of(
-      "second", 2, "third", 3, "fourth", 4, "fifth", 5, "sixth", 6, "seventh", 7, "eighth", 8, "ninth", 9, "tenth", 10);
   /** One-word function names written as in formulas, and what they mean. */
   private static final Map<String, Fn> FUNCTION_NAMES = Map.ofEntries(
       Map.entry("sqrt", Fn.SQRT), Map.entry("cbrt", Fn.CBRT), Map.entry("abs", Fn.ABS), Map.entry("exp", Fn.EXP),
@@ -142,39 +115,12 @@ final class PhraseParser {
   private static final Set<String> LIST_WORDS = Set.of("sum", "product", "average", "mean", "avg", "total");
   private static final Set<String> LIST_FUNCTIONS = Set.of("sum", "product", "average", "mean", "avg", "total", "max", "min",
       "gcd", "lcm");
-  /** Leading words that ask for a result and say nothing about it. */
-  private static final List<List<String>> LEADING_FILLER = List.of(
-      List.of("what", "is"), List.of("what's"), List.of("whats"), List.of("what", "are"), List.of("what", "does"),
-      List.of("what", "do"), List.of("how", "much", "is"), List.of("how", "much", "are"), List.of("how", "much"),
-      List.of("calculate"), List.of("compute"), List.of("evaluate"), List.of("work", "out"), List.of("figure", "out"),
-      List.of("find"), List.of("solve"), List.of("simplify"), List.of("determine"), List.of("please"),
-      List.of("can", "you"), List.of("could", "you"), List.of("would", "you"), List.of("will", "you"),
-      List.of("tell", "me"), List.of("give", "me"), List.of("show", "me"), List.of("i", "need"), List.of("i", "want"),
-      List.of("value", "of"), List.of("result", "of"), List.of("answer", "to"), List.of("answer", "of"),
-      List.of("hey"), List.of("ok"), List.of("okay"), List.of("quick", "question"), List.of("quickly"), List.of("convert"));
-  private static final List<List<String>> TRAILING_FILLER = List.of(
-      List.of("is", "equal", "to"), List.of("equal", "to"), List.of("equals"), List.of("equal"),
-      List.of("please"), List.of("for", "me"), List.of("exactly"), List.of("?"), List.of("."), List.of("="),
-      List.of(";"), List.of("…"), List.of("thanks"), List.of("thank", "you"), List.of("thx"), List.of("is"), List.of("are"));
-  private static final Set<String> CURRENCIES = Set.of("$", "€", "£", "¥", "₹");
 
-  private final String text;
-  private final Readings readings;
-  private List<Lexeme> toks;
-  private int pos;
-  private int end;
   private int depth;
   private int parenDepth;
-  /** Inside a function's parenthesised arguments: commas separate, never group digits. */
-  private boolean inCallArguments;
-  /** Inside a word list ("average of 3, 5 and 10"): commas separate. */
-  private boolean inWordList;
-  /** The position just after the last ')' that closed a group. */
-  private int lastGroupEnd = -1;
 
   private PhraseParser(String text, Readings readings) {
-    this.text = text;
-    this.readings = readings;
+    super(text, readings);
   }
 
   static Parsed parse(String text, int maxLength, Readings readings) throws ToolException, Ambiguous, UnknownWord {
@@ -185,10 +131,7 @@ final class PhraseParser {
     return new PhraseParser(text, readings).parseAll();
   }
 
-  // =====================================================================================
-  // The whole phrase: framing words, the rounding it asks for, currencies, the expression
-  // =====================================================================================
-
+  /** The phrase: its frame (PhraseFrame), then the expression, which must use every lexeme. */
   private Parsed parseAll() throws ToolException, Ambiguous, UnknownWord {
     List<Lexeme> all = new ArrayList<>();
     for (Lexeme l : PhraseLexer.lex(text)) {
@@ -196,87 +139,8 @@ final class PhraseParser {
         all.add(l);
       }
     }
-    toks = all;
-    int from = 0;
-    int to = toks.size();
-    // Framing: leading question words, a leading '=' or ':', trailing punctuation and words.
-    boolean changed = true;
-    while (changed) {
-      changed = false;
-      for (List<String> f : LEADING_FILLER) {
-        if (matches(from, to, f)) {
-          from += f.size();
-          changed = true;
-        }
-      }
-      // "tell me what 15 times 15 is": a bare "what" before the expression (not "what percent").
-      if (from + 1 < to && toks.get(from).isWord("what") && !toks.get(from + 1).isWord("percent")
-          && !toks.get(from + 1).isWord("percentage")) {
-        from++;
-        changed = true;
-      }
-      while (from < to && (toks.get(from).isSymbol("=") || toks.get(from).isSymbol(":") || toks.get(from).isSymbol(","))) {
-        from++;
-        changed = true;
-      }
-    }
-    changed = true;
-    while (changed) {
-      changed = false;
-      for (List<String> f : TRAILING_FILLER) {
-        if (to - f.size() > from && matches(to - f.size(), to, f)) {
-          to -= f.size();
-          changed = true;
-        }
-      }
-    }
-    // Rounding asked for in words: "..., to 2 decimal places", "round ... to the nearest tenth".
-    Integer places = null;
-    Integer digits = null;
-    String rounding = null;
-    RoundingPhrase suffix = roundingSuffix(from, to);
-    if (suffix != null) {
-      to = suffix.start;
-      places = suffix.places;
-      digits = suffix.digits;
-      rounding = suffix.rounding;
-    }
-    if (from < to && toks.get(from).isWord("round") && !(from + 1 < to && toks.get(from + 1).isSymbol("("))) {
-      from++;
-      if (from < to && toks.get(from).isWord("off")) {
-        from++;
-      }
-      if (from < to && (toks.get(from).isWord("up") || toks.get(from).isWord("down"))) {
-        String mode = toks.get(from).isWord("up") ? "ceiling" : "floor";
-        if (rounding != null && !rounding.equals(mode)) {
-          throw syntax("the phrase asks for two roundings", toks.get(from));
-        }
-        rounding = mode;
-        from++;
-      }
-      if (places == null && digits == null) {
-        places = 0;
-      }
-    }
-    // round(x) and round(x, n) around the whole expression: Python's round, as places.
-    if (from + 1 < to && toks.get(from).isWord("round") && toks.get(from + 1).isSymbol("(")) {
-      int close = matchingParen(from + 1, to);
-      if (close == to - 1) {
-        RoundCall rc = roundCall(from + 2, close);
-        if (rc != null) {
-          if (places != null || digits != null) {
-            throw syntax("the phrase asks for two roundings", toks.get(from));
-          }
-          places = rc.places;
-          from += 2;
-          to = rc.exprEnd;
-        }
-      }
-    }
-    toks = stripCurrencies(toks.subList(from, to));
-    if (toks.isEmpty()) {
-      throw new ToolException(ErrorCode.SYNTAX_ERROR, "the expression is empty");
-    }
+    PhraseFrame.Framed framed = PhraseFrame.frame(text, all);
+    toks = framed.expression();
     pos = 0;
     end = toks.size();
     Node expr = expression(0);
@@ -287,197 +151,15 @@ final class PhraseParser {
       }
       throw unexpected(extra);
     }
-    return new Parsed(expr, Optional.ofNullable(places), Optional.ofNullable(digits), Optional.ofNullable(rounding));
-  }
-
-  private boolean matches(int at, int limit, List<String> words) {
-    if (at + words.size() > limit) {
-      return false;
-    }
-    for (int i = 0; i < words.size(); i++) {
-      Lexeme l = toks.get(at + i);
-      String w = words.get(i);
-      boolean ok = (l.kind() == Kind.WORD || l.kind() == Kind.SYMBOL) && l.text().equals(w);
-      if (!ok) {
-        return false;
-      }
-    }
-    return true;
-  }
-
-  private int matchingParen(int open, int limit) {
-    int d = 0;
-    for (int i = open; i < limit; i++) {
-      if (toks.get(i).isSymbol("(")) {
-        d++;
-      } else if (toks.get(i).isSymbol(")") && --d == 0) {
-        return i;
-      }
-    }
-    return -1;
-  }
-
-  private record RoundCall(int exprEnd, int places) {}
-
-  /** {@code x} or {@code x, n} with n a whole number literal, between {@code from} and {@code close}. */
-  private RoundCall roundCall(int from, int close) {
-    int d = 0;
-    for (int i = from; i < close; i++) {
-      Lexeme l = toks.get(i);
-      if (l.isSymbol("(")) {
-        d++;
-      } else if (l.isSymbol(")")) {
-        d--;
-      } else if (d == 0 && l.isSymbol(",")) {
-        boolean negative = i + 1 < close && toks.get(i + 1).isSymbol("-");
-        int at = negative ? i + 2 : i + 1;
-        if (at == close - 1 && toks.get(at).kind() == Kind.NUMBER && isWhole(toks.get(at).value())
-            && toks.get(at).value().compareTo(BigDecimal.valueOf(40)) <= 0) {
-          int n = toks.get(at).value().intValueExact();
-          return new RoundCall(i, negative ? -n : n);
-        }
-        return null;
-      }
-    }
-    return new RoundCall(close, 0);
-  }
-
-  private record RoundingPhrase(int start, Integer places, Integer digits, String rounding) {}
-
-  /** The rounding phrase that ends the text, if one does; its start is where the expression ends. */
-  private RoundingPhrase roundingSuffix(int from, int to) throws ToolException {
-    for (int s = from + 1; s < to; s++) {
-      RoundingPhrase r = roundingAt(s, to);
-      if (r != null) {
-        return r;
-      }
-    }
-    return null;
-  }
-
-  private RoundingPhrase roundingAt(int s, int to) throws ToolException {
-    int i = s;
-    boolean paren = false;
-    if (toks.get(i).isSymbol(",")) {
-      i++;
-    } else if (toks.get(i).isSymbol("(")) {
-      paren = true;
-      i++;
-    }
-    String mode = null;
-    boolean verb = false;
-    if (i < to && (toks.get(i).isWord("rounded") || toks.get(i).isWord("round") || toks.get(i).isWord("correct")
-        || toks.get(i).isWord("accurate"))) {
-      verb = true;
-      i++;
-      if (i < to && toks.get(i).isWord("off")) {
-        i++;
-      }
-      if (i < to && (toks.get(i).isWord("up") || toks.get(i).isWord("down"))) {
-        mode = toks.get(i).isWord("up") ? "ceiling" : "floor";
-        i++;
-      }
-    }
-    if (verb && i == to && !paren) {
-      return new RoundingPhrase(s, 0, null, mode); // "7/2 rounded up": to a whole number
-    }
-    if (i < to && (toks.get(i).isWord("to") || toks.get(i).isWord("in") || toks.get(i).isWord("with"))) {
-      i++;
-    } else if (!paren && !verb) {
-      return null;
-    }
-    int close = paren ? to - 1 : to;
-    if (paren && !toks.get(to - 1).isSymbol(")")) {
-      return null;
-    }
-    if (i < close && toks.get(i).isWord("nearest")) {
-      i++;
-      Integer p = null;
-      if (matches(i, close, List.of("whole", "number")) && i + 2 == close) {
-        p = 0;
-      } else if (i + 1 == close && toks.get(i).kind() == Kind.WORD) {
-        p = switch (toks.get(i).text()) {
-          case "integer", "unit", "one", "dollar", "euro", "pound" -> 0;
-          case "tenth" -> 1;
-          case "hundredth", "cent", "penny" -> 2;
-          case "thousandth" -> 3;
-          case "ten" -> -1;
-          case "hundred" -> -2;
-          case "thousand" -> -3;
-          default -> null;
-        };
-      }
-      return p == null ? null : new RoundingPhrase(s, p, null, mode);
-    }
-    if (i >= close) {
-      return null;
-    }
-    Integer count = countAt(i);
-    if (count == null) {
-      return null;
-    }
-    i++;
-    List<String> rest = new ArrayList<>();
-    for (int j = i; j < close; j++) {
-      rest.add(toks.get(j).text());
-    }
-    String unit = String.join(" ", rest);
-    boolean isPlaces = Set.of("decimal places", "decimal place", "places", "place", "dp", "d . p .", "d . p", "decimals",
-        "decimal", "decimal digits", "digits after the decimal point", "digits after decimal point").contains(unit);
-    boolean isDigits = Set.of("significant figures", "significant figure", "significant digits", "significant digit",
-        "sig figs", "sig fig", "sigfigs", "sf", "s . f .", "s . f", "significant").contains(unit);
-    if (!isPlaces && !isDigits) {
-      return null;
-    }
-    if (isPlaces && (count < -20 || count > 40)) {
-      throw new ToolException(ErrorCode.INVALID_ARGUMENT, "the phrase asks for " + count + " decimal places; places must lie between -20 and 40");
-    }
-    if (isDigits && (count < 1 || count > 34)) {
-      throw new ToolException(ErrorCode.INVALID_ARGUMENT, "the phrase asks for " + count + " significant digits; digits must lie between 1 and 34");
-    }
-    return isPlaces ? new RoundingPhrase(s, count, null, mode) : new RoundingPhrase(s, null, count, mode);
-  }
-
-  /** A small whole count written as digits or a word ("2", "two"). */
-  private Integer countAt(int i) {
-    Lexeme l = toks.get(i);
-    if (l.kind() == Kind.NUMBER && isWhole(l.value()) && l.value().compareTo(BigDecimal.valueOf(100)) < 0) {
-      return l.value().intValueExact();
-    }
-    if (l.kind() == Kind.WORD && SMALL_NUMBERS.containsKey(l.text())) {
-      return SMALL_NUMBERS.get(l.text());
-    }
-    return null;
-  }
-
-  /** Drops currency signs next to numbers; two different currencies in one phrase are refused. */
-  private List<Lexeme> stripCurrencies(List<Lexeme> in) throws ToolException {
-    List<Lexeme> out = new ArrayList<>(in.size());
-    String seen = null;
-    for (int i = 0; i < in.size(); i++) {
-      Lexeme l = in.get(i);
-      if (l.kind() == Kind.SYMBOL && CURRENCIES.contains(l.text())) {
-        boolean beforeNumber = i + 1 < in.size() && in.get(i + 1).kind() == Kind.NUMBER && in.get(i + 1).start() == l.end();
-        boolean afterNumber = i > 0 && in.get(i - 1).kind() == Kind.NUMBER;
-        if (!beforeNumber && !afterNumber) {
-          throw syntax("a currency sign '" + l.text() + "' that is not next to a number", l);
-        }
-        if (seen != null && !seen.equals(l.text())) {
-          throw syntax("the phrase mixes the currencies " + seen + " and " + l.text() + "; arith does not convert money", l);
-        }
-        seen = l.text();
-        continue;
-      }
-      out.add(l);
-    }
-    return out;
+    return new Parsed(expr, framed.places(), framed.digits(), framed.rounding());
   }
 
   // =====================================================================================
   // Expressions: precedence climbing
   // =====================================================================================
 
-  private Node expression(int rbp) throws ToolException, Ambiguous, UnknownWord {
+  @Override
+  Node expression(int rbp) throws ToolException, Ambiguous, UnknownWord {
     enter();
     try {
       return continueFrom(prefix(), rbp);
@@ -487,7 +169,8 @@ final class PhraseParser {
   }
 
   /** Applies infix and postfix operators binding tighter than {@code rbp} to {@code left}. */
-  private Node continueFrom(Node left, int rbp) throws ToolException, Ambiguous, UnknownWord {
+  @Override
+  Node continueFrom(Node left, int rbp) throws ToolException, Ambiguous, UnknownWord {
     Op lastOp = null;
     while (pos < end) {
       Infix in = infix(left);
@@ -512,6 +195,12 @@ final class PhraseParser {
       lastOp = in.op;
     }
     return left;
+  }
+
+  @Override
+  int nextOperatorPower(Node left) throws ToolException, Ambiguous {
+    Infix in = infix(left);
+    return in == null ? -1 : in.power;
   }
 
   /** An infix or postfix operator at {@code pos}, or null. Applying it parses its right side. */
@@ -801,24 +490,6 @@ final class PhraseParser {
     return postfix(width, Node.Percent::new);
   }
 
-  /** {@code a + b%} is a percentage change of a (a * (1 + b/100)), unless a is itself a percentage. */
-  private static Node additive(Op op, Node left, Node right) {
-    if (right instanceof Node.Percent p && !isPercentage(left)) {
-      return new Node.PercentChange(left, p.x(), op == Op.ADD);
-    }
-    return new Bin(op, left, right);
-  }
-
-  private static boolean isPercentage(Node n) {
-    if (n instanceof Node.Percent) {
-      return true;
-    }
-    if (n instanceof Node.Neg g) {
-      return isPercentage(g.x());
-    }
-    return n instanceof Bin b && (b.op() == Op.ADD || b.op() == Op.SUB) && isPercentage(b.left()) && isPercentage(b.right());
-  }
-
   private boolean startsOperand(Lexeme t) {
     if (t.kind() == Kind.FRACTION) {
       return true;
@@ -831,18 +502,6 @@ final class PhraseParser {
     }
     String w = t.text();
     return w.equals("pi") || w.equals("π") || w.equals("e") || (FUNCTION_NAMES.containsKey(w) && !w.equals("root"));
-  }
-
-  private boolean wordsAt(int at, String... words) {
-    if (at + words.length > end) {
-      return false;
-    }
-    for (int i = 0; i < words.length; i++) {
-      if (!toks.get(at + i).isWord(words[i])) {
-        return false;
-      }
-    }
-    return true;
   }
 
   // =====================================================================================
@@ -909,7 +568,8 @@ final class PhraseParser {
     }
   }
 
-  private Node group() throws ToolException, Ambiguous, UnknownWord {
+  @Override
+  Node group() throws ToolException, Ambiguous, UnknownWord {
     Lexeme open = toks.get(pos);
     if (++parenDepth > MAX_DEPTH) {
       throw new ToolException(ErrorCode.LIMIT_EXCEEDED, "parentheses nest deeper than " + MAX_DEPTH + " levels");
@@ -964,11 +624,11 @@ final class PhraseParser {
     }
     Node node = new Num(value);
     // Scale words: 2.5 million, 3 thousand.
-    while (pos < end && toks.get(pos).kind() == Kind.WORD && (SCALES.containsKey(toks.get(pos).text())
+    while (pos < end && toks.get(pos).kind() == Kind.WORD && (NumberWords.SCALES.containsKey(toks.get(pos).text())
         || toks.get(pos).text().equals("hundred") || toks.get(pos).text().equals("dozen"))) {
       String scale = toks.get(pos).text();
       value = scale.equals("dozen") ? value.multiply(BigDecimal.valueOf(12))
-          : value.scaleByPowerOfTen(scale.equals("hundred") ? 2 : SCALES.get(scale));
+          : value.scaleByPowerOfTen(scale.equals("hundred") ? 2 : NumberWords.SCALES.get(scale));
       node = new Num(value);
       pos++;
     }
@@ -989,23 +649,8 @@ final class PhraseParser {
     return l.kind() == Kind.NUMBER && l.text().matches("[0-9]{3}(\\.[0-9]+)?");
   }
 
-  private boolean adjacent(int a, int b) {
-    return toks.get(a).end() == toks.get(b).start();
-  }
-
   private static Node fraction(Lexeme f) {
     return new Bin(Op.DIV, new Num(f.value()), Num.of(f.denominator()));
-  }
-
-  /** "two thirds", "3 quarters", "a half": a count followed by a fraction word. */
-  private Node fractionWords(Node count) {
-    if (pos < end && toks.get(pos).kind() == Kind.WORD && FRACTION_WORDS.containsKey(toks.get(pos).text())
-        && !(pos + 1 < end && toks.get(pos + 1).isWord("root"))) {
-      int d = FRACTION_WORDS.get(toks.get(pos).text());
-      pos++;
-      return new Bin(Op.DIV, count, Num.of(d));
-    }
-    return count;
   }
 
   /** A signed whole exponent as a tree: 2 or -(3). */
@@ -1013,7 +658,8 @@ final class PhraseParser {
     return v.signum() < 0 ? new Node.Neg(new Num(v.negate())) : new Num(v);
   }
 
-  private Node wordPrefix(Lexeme t) throws ToolException, Ambiguous, UnknownWord {
+  @Override
+  Node wordPrefix(Lexeme t) throws ToolException, Ambiguous, UnknownWord {
     String w = t.text();
     switch (w) {
       case "pi", "π":
@@ -1103,12 +749,12 @@ final class PhraseParser {
       default:
         break;
     }
-    if (SMALL_NUMBERS.containsKey(w) || w.contains("-") && SMALL_NUMBERS.containsKey(w.substring(0, w.indexOf('-')))) {
+    if (NumberWords.SMALL_NUMBERS.containsKey(w) || w.contains("-") && NumberWords.SMALL_NUMBERS.containsKey(w.substring(0, w.indexOf('-')))) {
       return numberWords();
     }
-    if (ORDINAL_WORDS.containsKey(w) && wordsAt(pos + 1, "root")) {
+    if (NumberWords.ORDINAL_WORDS.containsKey(w) && wordsAt(pos + 1, "root")) {
       pos += 2;
-      return Call.of(Fn.ROOT, wordOperand(t), Num.of(ORDINAL_WORDS.get(w)));
+      return Call.of(Fn.ROOT, wordOperand(t), Num.of(NumberWords.ORDINAL_WORDS.get(w)));
     }
     if (LIST_WORDS.contains(w)) {
       return listWord(t);
@@ -1128,464 +774,6 @@ final class PhraseParser {
           + " is a variable, and arith has none; write the number itself");
     }
     throw new UnknownWord("unknown word '" + w + "' at position " + position(t), t.start(), t.end());
-  }
-
-  /** "a" or "an" before a count word: a hundred, a million, a half, a third of. */
-  private Node article(Lexeme t) throws ToolException, UnknownWord {
-    if (pos + 1 < end && toks.get(pos + 1).kind() == Kind.WORD) {
-      String next = toks.get(pos + 1).text();
-      if (next.equals("hundred") || next.equals("dozen") || SCALES.containsKey(next)) {
-        pos++;
-        return numberWords();
-      }
-      if (FRACTION_WORDS.containsKey(next)) {
-        pos++;
-        return fractionWords(Num.of(1));
-      }
-    }
-    throw new UnknownWord("unknown word '" + t.text() + "' at position " + position(t), t.start(), t.end());
-  }
-
-  /** Cardinal number words: "two hundred five thousand", "twenty-five", "three point one four". */
-  private Node numberWords() throws ToolException {
-    BigDecimal total = BigDecimal.ZERO;
-    BigDecimal current = BigDecimal.ZERO;
-    boolean any = false;
-    if (toks.get(pos).isWord("a") || toks.get(pos).isWord("an")) {
-      current = BigDecimal.ONE;
-      pos++;
-    }
-    while (pos < end && toks.get(pos).kind() == Kind.WORD) {
-      String w = toks.get(pos).text();
-      Integer small = smallNumber(w);
-      if (small != null) {
-        current = current.add(BigDecimal.valueOf(small));
-      } else if (w.equals("hundred")) {
-        current = (current.signum() == 0 ? BigDecimal.ONE : current).scaleByPowerOfTen(2);
-      } else if (w.equals("dozen")) {
-        current = (current.signum() == 0 ? BigDecimal.ONE : current).multiply(BigDecimal.valueOf(12));
-      } else if (SCALES.containsKey(w)) {
-        total = total.add((current.signum() == 0 ? BigDecimal.ONE : current).scaleByPowerOfTen(SCALES.get(w)));
-        current = BigDecimal.ZERO;
-      } else if (w.equals("point") && any && pos + 1 < end && smallNumber(toks.get(pos + 1).text()) != null
-          && smallNumber(toks.get(pos + 1).text()) < 10) {
-        pos++;
-        StringBuilder fraction = new StringBuilder();
-        while (pos < end && toks.get(pos).kind() == Kind.WORD && smallNumber(toks.get(pos).text()) != null
-            && smallNumber(toks.get(pos).text()) < 10) {
-          fraction.append(smallNumber(toks.get(pos).text()));
-          pos++;
-        }
-        current = current.add(new BigDecimal("0." + fraction));
-        any = true;
-        break;
-      } else {
-        break;
-      }
-      any = true;
-      pos++;
-    }
-    return fractionWords(new Num(total.add(current)));
-  }
-
-  private static Integer smallNumber(String w) {
-    Integer v = SMALL_NUMBERS.get(w);
-    if (v != null) {
-      return v;
-    }
-    int hyphen = w.indexOf('-');
-    if (hyphen > 0) {
-      Integer tens = SMALL_NUMBERS.get(w.substring(0, hyphen));
-      Integer units = SMALL_NUMBERS.get(w.substring(hyphen + 1));
-      if (tens != null && units != null) {
-        return tens + units;
-      }
-    }
-    return null;
-  }
-
-  /** "add A to B", "subtract A from B", "multiply A by B", "divide A by B", "increase A by B". */
-  private Node verb(Op op, Set<String> joiners, Lexeme verb) throws ToolException, Ambiguous, UnknownWord {
-    Node a = expression(0);
-    if (pos >= end || toks.get(pos).kind() != Kind.WORD || !joiners.contains(toks.get(pos).text())) {
-      throw new ToolException(ErrorCode.SYNTAX_ERROR, "'" + verb.text() + "' at position " + position(verb)
-          + " needs '" + String.join("' or '", new java.util.TreeSet<>(joiners)) + "' before its second number");
-    }
-    String joiner = toks.get(pos).text();
-    pos++;
-    Node b = lastListItem();
-    if (op == Op.SUB && joiner.equals("from")) {
-      return additive(Op.SUB, b, a); // subtract A from B: B - A
-    }
-    if (op == Op.ADD && joiner.equals("to")) {
-      return additive(Op.ADD, b, a); // add A to B: B + A
-    }
-    return op == Op.ADD || op == Op.SUB ? additive(op, a, b) : new Bin(op, a, b);
-  }
-
-  /** "what percent of B is A", "what percent is A of B": A / B * 100. */
-  private Node whatPercent(Lexeme t) throws ToolException, Ambiguous, UnknownWord {
-    if (!(wordsAt(pos + 1, "percent") || wordsAt(pos + 1, "percentage"))) {
-      throw new UnknownWord("unknown word 'what' at position " + position(t), t.start(), t.end());
-    }
-    pos += 2;
-    Node part;
-    Node whole;
-    if (wordsAt(pos, "of")) {
-      pos++;
-      whole = expression(0);
-      expectWord("is", t);
-      part = lastListItem();
-    } else if (wordsAt(pos, "is")) {
-      pos++;
-      part = expression(MULTIPLICATIVE);
-      expectWord("of", t);
-      whole = lastListItem();
-    } else {
-      throw syntax("'what percent' needs 'of' or 'is' after it", t);
-    }
-    return new Bin(Op.MUL, new Bin(Op.DIV, part, whole), Num.of(100));
-  }
-
-  /** "percent change from A to B" = (B - A) / A * 100; "percent decrease" = (A - B) / A * 100. */
-  private Node percentChange(Lexeme t) throws ToolException, Ambiguous, UnknownWord {
-    int kind = pos + 1 < end && toks.get(pos + 1).kind() == Kind.WORD ? switch (toks.get(pos + 1).text()) {
-      case "change", "increase", "difference" -> 1;
-      case "decrease" -> -1;
-      default -> 0;
-    } : 0;
-    if (kind == 0 || !wordsAt(pos + 2, "from")) {
-      throw new UnknownWord("'" + t.text() + "' at position " + position(t) + " must follow a number (15%, 15 percent)"
-          + " or start 'percent change from A to B'", t.start(), t.end());
-    }
-    pos += 3;
-    Node from = expression(0);
-    expectWord("to", t);
-    Node to = lastListItem();
-    Node change = kind > 0 ? new Bin(Op.SUB, to, from) : new Bin(Op.SUB, from, to);
-    return new Bin(Op.MUL, new Bin(Op.DIV, change, from), Num.of(100));
-  }
-
-  /** "remainder of A divided by B", "remainder when A is divided by B": A mod B. */
-  private Node remainder(Lexeme t) throws ToolException, Ambiguous, UnknownWord {
-    pos++;
-    if (!(wordsAt(pos, "of") || wordsAt(pos, "when"))) {
-      throw syntax("'remainder' needs 'of' or 'when' after it (the remainder of 17 divided by 5)", t);
-    }
-    pos++;
-    Node a = expression(MULTIPLICATIVE);
-    if (wordsAt(pos, "is")) {
-      pos++;
-    }
-    if (wordsAt(pos, "divided", "by")) {
-      pos += 2;
-    } else if (pos < end && (toks.get(pos).isSymbol("/") || toks.get(pos).isWord("by") || toks.get(pos).isWord("mod")
-        || toks.get(pos).isWord("modulo"))) {
-      pos++;
-    } else {
-      throw syntax("'remainder' needs 'divided by' between its numbers", t);
-    }
-    return new Bin(Op.MOD, a, expression(MULTIPLICATIVE));
-  }
-
-  /** "difference between A and B": A - B when A >= B are plain numbers; otherwise the order is asked. */
-  private Node difference(Lexeme t) throws ToolException, Ambiguous, UnknownWord {
-    pos++;
-    if (!(wordsAt(pos, "between") || wordsAt(pos, "of"))) {
-      throw syntax("'difference' needs 'between' or 'of' after it (the difference between 45 and 28)", t);
-    }
-    pos++;
-    boolean list = inWordList;
-    inWordList = true;
-    Node a = expression(0);
-    expectWord("and", t);
-    Node b = lastListItem();
-    inWordList = list;
-    if (a instanceof Num x && b instanceof Num y && x.value().compareTo(y.value()) >= 0) {
-      return new Bin(Op.SUB, a, b);
-    }
-    Choice c = readings.of(Ambiguity.DIFFERENCE_ORDER);
-    if (c == Choice.REFUSE) {
-      throw new Ambiguous(Ambiguity.DIFFERENCE_ORDER, "'difference between' does not say which number is subtracted");
-    }
-    return c == Choice.FIRST ? new Bin(Op.SUB, a, b) : new Bin(Op.SUB, b, a);
-  }
-
-  /** "quotient of A and B": A / B. */
-  private Node quotient(Lexeme t) throws ToolException, Ambiguous, UnknownWord {
-    pos++;
-    expectWord("of", t);
-    Node a = expression(MULTIPLICATIVE);
-    if (wordsAt(pos, "and") || wordsAt(pos, "by")) {
-      pos++;
-    } else if (wordsAt(pos, "divided", "by")) {
-      pos += 2;
-    } else {
-      throw syntax("'quotient of' needs 'and' between its numbers", t);
-    }
-    return new Bin(Op.DIV, a, lastListItem());
-  }
-
-  /** "sum of A, B and C", "average of ...", "product of ...": the list, combined. */
-  private Node listWord(Lexeme t) throws ToolException, Ambiguous, UnknownWord {
-    String w = t.text();
-    pos++;
-    if (pos < end && toks.get(pos).isSymbol("(")) {
-      List<Node> args = arguments(t);
-      return combine(w, args, t);
-    }
-    if (wordsAt(pos, "of")) {
-      pos++;
-    } else if (!w.equals("sum") && !w.equals("average") && !w.equals("mean") && !w.equals("total")) {
-      throw syntax("'" + w + "' needs 'of' after it (the " + w + " of 3, 4 and 5)", t);
-    }
-    boolean list = inWordList;
-    inWordList = true;
-    List<Node> items = new ArrayList<>();
-    while (true) {
-      int itemStart = pos;
-      Node item = expression(PREFIX);
-      if (pos < end && isListSeparator()) {
-        items.add(item);
-        skipListSeparator();
-        continue;
-      }
-      int saved = pos;
-      Node wide = continueFrom(item, 0);
-      if (pos < end && isListSeparator()) {
-        items.add(wide);
-        skipListSeparator();
-        continue;
-      }
-      if (pos != saved) {
-        Choice c = readings.of(Ambiguity.LIST_EXTENT);
-        if (c == Choice.REFUSE) {
-          throw new Ambiguous(Ambiguity.LIST_EXTENT, "the " + w + " of a list followed by '"
-              + toks.get(saved).text() + "' does not say where the list ends");
-        }
-        if (c == Choice.FIRST) {
-          pos = saved;
-          items.add(item);
-        } else {
-          items.add(wide);
-        }
-      } else {
-        items.add(item);
-      }
-      if (itemStart == pos) {
-        throw unexpected(toks.get(pos));
-      }
-      break;
-    }
-    inWordList = list;
-    return combine(w, items, t);
-  }
-
-  private boolean isListSeparator() {
-    Lexeme l = toks.get(pos);
-    return l.isSymbol(",") || l.isWord("and");
-  }
-
-  private void skipListSeparator() {
-    if (toks.get(pos).isSymbol(",") && pos + 1 < end && toks.get(pos + 1).isWord("and")) {
-      pos++;
-    }
-    pos++;
-  }
-
-  private Node combine(String w, List<Node> items, Lexeme t) throws ToolException {
-    if (items.size() < 2) {
-      throw syntax("the " + w + " of a single number; separate the numbers with ', ' or 'and' (the " + w
-          + " of 3, 4 and 5)", t);
-    }
-    Op op = w.equals("product") ? Op.MUL : Op.ADD;
-    Node acc = items.get(0);
-    for (int i = 1; i < items.size(); i++) {
-      acc = new Bin(op, acc, items.get(i));
-    }
-    if (w.equals("average") || w.equals("mean") || w.equals("avg")) {
-      return new Bin(Op.DIV, acc, Num.of(items.size()));
-    }
-    return acc;
-  }
-
-  /**
-   * The second operand of a verb or the last of a list: when operators follow it, whether they
-   * belong to it or to the whole phrase is unclear (LIST_EXTENT).
-   */
-  private Node lastListItem() throws ToolException, Ambiguous, UnknownWord {
-    Node item = expression(PREFIX);
-    int saved = pos;
-    Node wide = continueFrom(item, 0);
-    if (pos == saved) {
-      return item;
-    }
-    Choice c = readings.of(Ambiguity.LIST_EXTENT);
-    if (c == Choice.REFUSE) {
-      throw new Ambiguous(Ambiguity.LIST_EXTENT, "the words before the last number do not say whether '"
-          + toks.get(saved).text() + "' applies to that number alone or to the whole");
-    }
-    if (c == Choice.FIRST) {
-      pos = saved;
-      return item;
-    }
-    return wide;
-  }
-
-  private void expectWord(String w, Lexeme phrase) throws ToolException {
-    if (pos < end && toks.get(pos).isWord(w)) {
-      pos++;
-      return;
-    }
-    throw new ToolException(ErrorCode.SYNTAX_ERROR, "the phrase starting '" + phrase.text() + "' at position "
-        + position(phrase) + " needs '" + w + "'" + (pos < end ? " where it has '" + toks.get(pos).text() + "'" : " before its end"));
-  }
-
-  /** "square root of x", "square of x", "cube root of x", "cube of x". */
-  private Node squareOrCube(Lexeme t) throws ToolException, Ambiguous, UnknownWord {
-    boolean square = t.text().equals("square");
-    if (wordsAt(pos + 1, "root")) {
-      pos += 2;
-      Node x = functionOperand(t, true);
-      return square ? Call.of(Fn.SQRT, x) : Call.of(Fn.CBRT, x);
-    }
-    if (wordsAt(pos + 1, "of")) {
-      pos++;
-      Node x = functionOperand(t, true);
-      return new Bin(Op.POW, x, Num.of(square ? 2 : 3));
-    }
-    throw new UnknownWord("unknown use of '" + t.text() + "' at position " + position(t)
-        + "; write 'square root of x', 'square of x' or 'x squared'", t.start(), t.end());
-  }
-
-  /** log x (base 10), log_b(x), log₂(x), log base b of x; log(x, b) is ambiguous. */
-  private Node logarithm(Lexeme t) throws ToolException, Ambiguous, UnknownWord {
-    pos++;
-    Node base = null;
-    if (pos < end && toks.get(pos).kind() == Kind.SUBSCRIPT) {
-      base = new Num(toks.get(pos).value());
-      pos++;
-    } else if (pos < end && toks.get(pos).isSymbol("_")) {
-      pos++;
-      if (pos < end && toks.get(pos).kind() == Kind.NUMBER) {
-        base = new Num(toks.get(pos).value());
-        pos++;
-      } else if (pos < end && toks.get(pos).isSymbol("(")) {
-        base = group();
-      } else {
-        throw syntax("'log_' needs a base: log_2(8)", t);
-      }
-    } else if (wordsAt(pos, "base")) {
-      pos++;
-      base = expression(POWER); // a number or a group: log base 2 of 8
-    }
-    if (base != null) {
-      return Call.of(Fn.LOG_BASE, functionOperand(t, !t.text().equals("log") || wordsAt(pos, "of")), base);
-    }
-    if (pos < end && toks.get(pos).isSymbol("(")) {
-      List<Node> args = arguments(t);
-      if (args.size() == 1) {
-        return Call.of(Fn.LOG10, args.get(0));
-      }
-      if (args.size() == 2) {
-        Choice c = readings.of(Ambiguity.LOG_ARGUMENT_ORDER);
-        if (c == Choice.REFUSE) {
-          throw new Ambiguous(Ambiguity.LOG_ARGUMENT_ORDER, "log with two arguments puts the base second in some"
-              + " languages and first in others");
-        }
-        return c == Choice.FIRST ? Call.of(Fn.LOG_BASE, args.get(0), args.get(1)) : Call.of(Fn.LOG_BASE, args.get(1), args.get(0));
-      }
-      throw syntax("log takes one argument (base 10) or a base written log_b(x)", t);
-    }
-    return Call.of(Fn.LOG10, functionOperand(t, t.text().equals("logarithm") || wordsAt(pos, "of")));
-  }
-
-  /** pow(a, b) and power(a, b): a ^ b, as in C, Python and spreadsheets. */
-  private Node powCall(Lexeme t) throws ToolException, Ambiguous, UnknownWord {
-    pos++;
-    if (pos < end && toks.get(pos).isSymbol("(")) {
-      List<Node> args = arguments(t);
-      if (args.size() == 2) {
-        return new Bin(Op.POW, args.get(0), args.get(1));
-      }
-      throw syntax("pow takes two arguments: pow(2, 10)", t);
-    }
-    throw new UnknownWord("unknown use of '" + t.text() + "' at position " + position(t)
-        + "; write 2 ^ 10, 2 ** 10 or 2 to the power of 10", t.start(), t.end());
-  }
-
-  /** comb(n, k): n choose k, as Python's math.comb. */
-  private Node combCall(Lexeme t) throws ToolException, Ambiguous, UnknownWord {
-    pos++;
-    if (pos < end && toks.get(pos).isSymbol("(")) {
-      List<Node> args = arguments(t);
-      if (args.size() == 2) {
-        return new Bin(Op.CHOOSE, args.get(0), args.get(1));
-      }
-    }
-    throw syntax("comb takes two arguments: comb(10, 3)", t);
-  }
-
-  /**
-   * A name after {@code math.} (Python's math module, JavaScript's Math object): those libraries'
-   * meanings, so math.log is the natural logarithm and math.log(x, b) has the base second.
-   */
-  private Node libraryName(Lexeme name) throws ToolException, Ambiguous, UnknownWord {
-    pos += 2;
-    switch (name.text()) {
-      case "pi":
-        pos++;
-        return new Node.Const("pi");
-      case "e":
-        pos++;
-        return new Node.Const("e");
-      case "log": {
-        pos++;
-        if (pos < end && toks.get(pos).isSymbol("(")) {
-          List<Node> args = arguments(name);
-          if (args.size() == 1) {
-            return Call.of(Fn.LN, args.get(0));
-          }
-          if (args.size() == 2) {
-            return Call.of(Fn.LOG_BASE, args.get(0), args.get(1));
-          }
-        }
-        throw syntax("math.log takes one argument (natural) or two (x, base)", name);
-      }
-      case "radians": {
-        pos++;
-        List<Node> args = arguments(name);
-        if (args.size() == 1) {
-          return new Node.Degrees(args.get(0));
-        }
-        throw syntax("math.radians takes one argument", name);
-      }
-      case "degrees": {
-        pos++;
-        List<Node> args = arguments(name);
-        if (args.size() == 1) {
-          return new Bin(Op.DIV, new Bin(Op.MUL, args.get(0), Num.of(180)), new Node.Const("pi"));
-        }
-        throw syntax("math.degrees takes one argument", name);
-      }
-      case "factorial", "pow", "comb", "sqrt", "cbrt", "exp", "sin", "cos", "tan", "asin", "acos", "atan", "floor",
-          "ceil", "trunc", "log10", "log2", "gcd", "lcm", "fabs", "abs", "fmod", "max", "min":
-        return wordPrefix(name);
-      default:
-        throw new UnknownWord("unknown name 'math." + name.text() + "' at position " + position(name), name.start(), name.end());
-    }
-  }
-
-  /** mod(a, b): a mod b, floored as the infix mod. */
-  private Node modCall(Lexeme t) throws ToolException, Ambiguous, UnknownWord {
-    pos++;
-    if (pos < end && toks.get(pos).isSymbol("(")) {
-      List<Node> args = arguments(t);
-      if (args.size() == 2) {
-        return new Bin(Op.MOD, args.get(0), args.get(1));
-      }
-    }
-    throw syntax("'mod' goes between two numbers (17 mod 5) or takes two arguments: mod(17, 5)", t);
   }
 
   /** A named function: f(args), f of x (English), or f x (formula style, binding like unary minus). */
@@ -1608,52 +796,9 @@ final class PhraseParser {
     return Call.of(fn, functionOperand(name, englishWord || wordsAt(pos, "of")));
   }
 
-  /**
-   * The operand of a function written without parentheses. After an English phrase ("square root
-   * of"), an operator after the operand makes its extent unclear (WORD_OPERAND_EXTENT); formula
-   * style (sqrt 16 + 9) binds like unary minus.
-   */
-  private Node functionOperand(Lexeme name, boolean english) throws ToolException, Ambiguous, UnknownWord {
-    if (pos < end && toks.get(pos).isWord("of")) {
-      pos++;
-      english = true;
-    }
-    return english ? wordOperand(name) : expression(PREFIX);
-  }
-
-  /** The operand of an English word operator (square root of, twice, half of); see above. */
-  private Node wordOperand(Lexeme first) throws ToolException, Ambiguous, UnknownWord {
-    if (pos < end && toks.get(pos).isWord("of")) {
-      pos++;
-    }
-    String phrase = text.substring(first.start(), toks.get(pos - 1).end());
-    if (pos >= end) {
-      throw new ToolException(ErrorCode.SYNTAX_ERROR, "the expression ends where a number was expected" + after(pos - 1));
-    }
-    boolean grouped = toks.get(pos).isSymbol("(");
-    Node x = expression(PREFIX);
-    if (grouped && lastGroupEnd == pos) {
-      return x;
-    }
-    int saved = pos;
-    if (pos < end) {
-      Infix next = infix(x);
-      if (next != null && next.power < POSTFIX) {
-        Choice c = readings.of(Ambiguity.WORD_OPERAND_EXTENT);
-        if (c == Choice.REFUSE) {
-          throw new Ambiguous(Ambiguity.WORD_OPERAND_EXTENT, "the words do not say whether '" + toks.get(saved).text()
-              + "' comes before or after '" + phrase + "' is applied");
-        }
-        if (c == Choice.SECOND) {
-          return continueFrom(x, 0);
-        }
-      }
-    }
-    return x;
-  }
-
   /** '(' arguments ')': comma-separated expressions; digits are never grouped inside. */
-  private List<Node> arguments(Lexeme name) throws ToolException, Ambiguous, UnknownWord {
+  @Override
+  List<Node> arguments(Lexeme name) throws ToolException, Ambiguous, UnknownWord {
     Lexeme open = toks.get(pos);
     if (++parenDepth > MAX_DEPTH) {
       throw new ToolException(ErrorCode.LIMIT_EXCEEDED, "parentheses nest deeper than " + MAX_DEPTH + " levels");
@@ -1662,7 +807,7 @@ final class PhraseParser {
     // sum([1, 2, 3]), max([3, 7]): a list written as one bracketed argument, as in Python.
     boolean bracketed = false;
     if (LIST_FUNCTIONS.contains(name.text()) && pos < end && toks.get(pos).isSymbol("(")) {
-      int close = matchingParen(pos, end);
+      int close = PhraseFrame.matchingParen(toks, pos, end);
       if (close > 0 && close + 1 < end && toks.get(close + 1).isSymbol(")")) {
         bracketed = true;
         pos++;
@@ -1721,32 +866,4 @@ final class PhraseParser {
         + position(t), suggestions));
   }
 
-  private ToolException unexpected(Lexeme t) {
-    if (t.isSymbol(")")) {
-      return syntax("unmatched ')'", t);
-    }
-    if (t.isSymbol(",")) {
-      return syntax("unexpected ','; commas separate function arguments or group digits in threes (1,000)", t);
-    }
-    if (t.isSymbol("=")) {
-      return syntax("an equation: arith evaluates one expression, not an equality", t);
-    }
-    return syntax("unexpected '" + t.text() + "'", t);
-  }
-
-  private ToolException syntax(String what, Lexeme at) {
-    return new ToolException(ErrorCode.SYNTAX_ERROR, what + " at position " + position(at));
-  }
-
-  private String after(int i) {
-    return i >= 0 && i < toks.size() ? " after '" + toks.get(i).text() + "'" : "";
-  }
-
-  private int position(Lexeme l) {
-    return text.codePointCount(0, l.start()) + 1;
-  }
-
-  private static boolean isWhole(BigDecimal v) {
-    return v.signum() == 0 || v.stripTrailingZeros().scale() <= 0;
-  }
 }

@@ -140,26 +140,25 @@ record Rational(BigInteger num, BigInteger den) {
     return checked(d.signum() < 0 ? reduced(n.negate(), d.negate()) : reduced(n, d));
   }
 
-  /** The quotient rounded toward negative infinity ({@code floor}) or zero ({@code trunc}). */
-  BigInteger quotient(Rational o, boolean floor) throws TooLarge {
-    sizeCheck((long) num.bitLength() + o.den.bitLength());
-    sizeCheck((long) den.bitLength() + o.num.bitLength());
-    BigInteger n = num.multiply(o.den);
-    BigInteger d = den.multiply(o.num);
-    BigInteger[] qr = n.divideAndRemainder(d);
-    if (floor && qr[1].signum() != 0 && (qr[1].signum() != d.signum())) {
-      return qr[0].subtract(BigInteger.ONE);
-    }
-    return qr[0];
-  }
-
-  /** {@code this - o * q} where q is the floored or truncated quotient. */
+  /**
+   * {@code this - o * q} where q is the quotient rounded toward negative infinity ({@code floor},
+   * the result takes the sign of o) or toward zero (the sign of this). On a common denominator
+   * the remainder is one of integers, so the quotient itself — which for 1e9999 mod 1e-9999 has
+   * 20,000 digits — is never a value of the expression and never overflows it.
+   */
   Rational remainder(Rational o, boolean floor) throws ToolException, TooLarge {
     if (o.num.signum() == 0) {
       throw new ToolException(ErrorCode.DOMAIN_ERROR, "modulo by zero");
     }
-    BigInteger q = quotient(o, floor);
-    return subtract(o.multiply(of(q)));
+    sizeCheck((long) den.bitLength() + o.den.bitLength());
+    BigInteger common = den.multiply(o.den);
+    BigInteger a = num.multiply(o.den);
+    BigInteger b = o.num.multiply(den);
+    BigInteger r = a.remainder(b); // the sign of a
+    if (floor && r.signum() != 0 && r.signum() != b.signum()) {
+      r = r.add(b);
+    }
+    return checked(reduced(r, common));
   }
 
   /** {@code this ^ n} for a whole {@code n}; the caller has bounded |n|. */
@@ -182,7 +181,7 @@ record Rational(BigInteger num, BigInteger den) {
     if (estimate < -MAX_EXPONENT - 2) {
       throw tooSmallResult();
     }
-    sizeCheck((long) Math.max(num.bitLength(), den.bitLength()) * m);
+    sizeCheck((long) Math.ceil(Math.max(log2(num.abs()), log2(den)) * m) + 1);
     BigInteger pn = num.pow(m);
     BigInteger pd = den.pow(m);
     Rational r = n > 0 ? new Rational(pn, pd) : pn.signum() < 0 ? new Rational(pd.negate(), pn.negate()) : new Rational(pd, pn);
@@ -192,6 +191,12 @@ record Rational(BigInteger num, BigInteger den) {
   /** An approximation of {@code log10(|this|)} for estimates; this must not be zero. */
   double log10Abs() {
     return log10(num.abs()) - log10(den);
+  }
+
+  /** log2(x) for x >= 1, to a few parts in 1e15. */
+  private static double log2(BigInteger x) {
+    int shift = Math.max(0, x.bitLength() - 60);
+    return StrictMath.log(x.shiftRight(shift).doubleValue()) / StrictMath.log(2.0) + shift;
   }
 
   private static double log10(BigInteger x) {

@@ -281,11 +281,7 @@ final class RealFunctions {
     }
     int nn = bn.intValueExact();
     int kk = Math.min(bk.intValueExact(), nn - bk.intValueExact());
-    BigInteger r = BigInteger.ONE;
-    for (int i = 1; i <= kk; i++) {
-      r = r.multiply(BigInteger.valueOf(nn - kk + i)).divide(BigInteger.valueOf(i));
-    }
-    return Rational.of(r);
+    return Rational.of(product(nn - kk + 1, nn).divide(product(1, kk)));
   }
 
   private static Rational gcdOrLcm(Fn fn, List<Rational> args) throws ToolException {

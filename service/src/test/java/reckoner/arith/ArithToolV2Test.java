@@ -147,10 +147,12 @@ final class ArithToolV2Test {
 
   @Test
   void boundedEvaluation_nearABoundaryItCannotDecide_isLimitExceeded() {
-    // (4/3)^30000 (about 1e3748) minus itself is exactly 0, so the sum is exactly 0.005: a tie at two
-    // places that bounds around 1e3748 cannot settle within 10,100 digits. 0.004 is no tie.
-    assertEquals(ErrorCode.LIMIT_EXCEEDED, error("(4/3)^30000 - (4/3)^30000 + 0.005").code());
-    assertEquals("0", eval("(4/3)^30000 - (4/3)^30000 + 0.004"));
+    // (8/7)^20000 (about 1e1160, 60,000 bits exactly) minus itself is exactly 0, so the sum is
+    // exactly 0.005: a tie at two places that bounds around 1e1160 never settle. 0.004 is no tie,
+    // and bounds at about 1,200 digits decide it.
+    assertEquals(ErrorCode.LIMIT_EXCEEDED, error("(8/7)^20000 - (8/7)^20000 + 0.005").code());
+    assertEquals("0", eval("(8/7)^20000 - (8/7)^20000 + 0.004"));
+    assertEquals(ErrorCode.LIMIT_EXCEEDED, error("(4/3)^30000 - (4/3)^30000 + 0.004").code()); // 1e3748: beyond 2,000 digits
   }
 
   /* ------- ambiguity: refused with both readings ------- */
