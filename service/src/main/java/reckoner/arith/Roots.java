@@ -84,8 +84,19 @@ final class Roots {
     }
     BigInteger bn = BigInteger.valueOf(n);
     BigInteger nMinus1 = BigInteger.valueOf(n - 1);
-    // Start above the root: 2^ceil(bits/n).
+    // Newton's method from above shrinks only by (n-1)/n a step while far from the root, so start
+    // just above it: 2^(log2(m)/n) from doubles, raised by a margin far beyond their error, when
+    // that is checked to lie above the root; else 2^ceil(bits/n), which always does.
     BigInteger x = BigInteger.ONE.shiftLeft((m.bitLength() + n - 1) / n);
+    int shift = Math.max(0, m.bitLength() - 60);
+    double log2 = (StrictMath.log(m.shiftRight(shift).doubleValue()) / StrictMath.log(2.0) + shift) / n;
+    double whole = Math.floor(log2);
+    long mantissa = (long) Math.ceil(StrictMath.pow(2.0, log2 - whole) * (1L << 52) * (1 + 1e-9)) + 1;
+    BigInteger estimate = whole >= 52 ? BigInteger.valueOf(mantissa).shiftLeft((int) whole - 52)
+        : BigInteger.valueOf(mantissa).shiftRight(52 - (int) whole).add(BigInteger.ONE);
+    if (estimate.compareTo(x) < 0 && estimate.pow(n).compareTo(m) > 0) {
+      x = estimate;
+    }
     while (true) {
       BigInteger y = nMinus1.multiply(x).add(m.divide(x.pow(n - 1))).divide(bn);
       if (y.compareTo(x) >= 0) {
