@@ -5,6 +5,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 import java.util.Set;
+import java.util.stream.Collectors;
 import reckoner.arith.PhraseLexer.Kind;
 import reckoner.arith.PhraseLexer.Lexeme;
 import reckoner.tool.ErrorCode;
@@ -39,6 +40,11 @@ final class PhraseFrame {
       List.of("is", "equal", "to"), List.of("equal", "to"), List.of("equals"), List.of("equal"),
       List.of("please"), List.of("for", "me"), List.of("exactly"), List.of("?"), List.of("."), List.of("="),
       List.of(";"), List.of("…"), List.of("thanks"), List.of("thank", "you"), List.of("thx"), List.of("is"), List.of("are"));
+
+  /** The words that can start a leading filler and end a trailing one: most phrases have none. */
+  private static final Set<String> LEADING_STARTS = LEADING_FILLER.stream().map(f -> f.get(0)).collect(Collectors.toUnmodifiableSet());
+  private static final Set<String> TRAILING_ENDS = TRAILING_FILLER.stream().map(f -> f.get(f.size() - 1))
+      .collect(Collectors.toUnmodifiableSet());
 
   private static final Set<String> CURRENCIES = Set.of("$", "€", "£", "¥", "₹");
 
@@ -233,7 +239,7 @@ final class PhraseFrame {
     boolean changed = true;
     while (changed) {
       changed = false;
-      for (List<String> f : LEADING_FILLER) {
+      for (List<String> f : from < to && LEADING_STARTS.contains(toks.get(from).text()) ? LEADING_FILLER : List.<List<String>>of()) {
         if (matches(from, to, f)) {
           from += f.size();
           changed = true;
@@ -253,7 +259,7 @@ final class PhraseFrame {
     changed = true;
     while (changed) {
       changed = false;
-      for (List<String> f : TRAILING_FILLER) {
+      for (List<String> f : to > from && TRAILING_ENDS.contains(toks.get(to - 1).text()) ? TRAILING_FILLER : List.<List<String>>of()) {
         if (to - f.size() > from && matches(to - f.size(), to, f)) {
           to -= f.size();
           changed = true;

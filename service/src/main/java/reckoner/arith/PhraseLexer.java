@@ -75,7 +75,8 @@ final class PhraseLexer {
         throw new ToolException(ErrorCode.SYNTAX_ERROR, "the text holds " + describeInvisible(cp) + " at position "
             + (text.codePointCount(0, i) + 1) + "; remove it and send the expression as plain text");
       }
-      if (Character.isWhitespace(cp) || Character.getType(cp) == Character.SPACE_SEPARATOR || (cp < 0x10000 && IGNORED.contains((char) cp))) {
+      if (cp == ' ' || Character.isWhitespace(cp) || Character.getType(cp) == Character.SPACE_SEPARATOR
+          || (cp >= '"' && cp < 0x10000 && IGNORED.contains((char) cp))) {
         i += width;
         continue;
       }
@@ -103,7 +104,7 @@ final class PhraseLexer {
         i = j;
         continue;
       }
-      int[] fraction = FRACTIONS.get(c);
+      int[] fraction = c >= '¼' ? FRACTIONS.get(c) : null;
       if (fraction != null) {
         out.add(new Lexeme(Kind.FRACTION, String.valueOf(c), BigDecimal.valueOf(fraction[0]), fraction[1], i, i + 1));
         i++;

@@ -434,7 +434,16 @@ final class PhraseParser extends WordPhrases {
   }
 
   private static boolean isDigits(Lexeme l) {
-    return l.kind() == Kind.NUMBER && l.text().chars().allMatch(ch -> ch >= '0' && ch <= '9');
+    return l.kind() == Kind.NUMBER && allDigits(l.text());
+  }
+
+  private static boolean allDigits(String s) {
+    for (int i = 0; i < s.length(); i++) {
+      if (s.charAt(i) < '0' || s.charAt(i) > '9') {
+        return false;
+      }
+    }
+    return true;
   }
 
   private Infix implicitProduct() {
@@ -642,7 +651,7 @@ final class PhraseParser extends WordPhrases {
 
   private boolean isGroupHead(Lexeme l) {
     String w = l.text();
-    return !inCallArguments && w.chars().allMatch(ch -> ch >= '0' && ch <= '9') && w.length() >= 1 && w.length() <= 3;
+    return !inCallArguments && w.length() >= 1 && w.length() <= 3 && allDigits(w);
   }
 
   private static boolean isGroup(Lexeme l) {

@@ -73,8 +73,23 @@ record Rational(BigInteger num, BigInteger den) {
     if (d.equals(BigInteger.ONE) || n.bitLength() > REDUCE_BITS || d.bitLength() > REDUCE_BITS) {
       return new Rational(n, d);
     }
+    if (n.bitLength() < 63 && d.bitLength() < 63) { // the common case, without BigInteger's general gcd
+      long a = n.longValue();
+      long b = d.longValue();
+      long g = gcd(Math.abs(a), b);
+      return g == 1 ? new Rational(n, d) : new Rational(BigInteger.valueOf(a / g), BigInteger.valueOf(b / g));
+    }
     BigInteger g = n.gcd(d);
     return g.equals(BigInteger.ONE) ? new Rational(n, d) : new Rational(n.divide(g), d.divide(g));
+  }
+
+  private static long gcd(long a, long b) {
+    while (b != 0) {
+      long t = a % b;
+      a = b;
+      b = t;
+    }
+    return a;
   }
 
   int signum() {
