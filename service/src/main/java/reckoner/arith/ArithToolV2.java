@@ -28,8 +28,6 @@ import reckoner.tool.ToolId;
 public final class ArithToolV2 implements Tool {
   public static final ToolId ID = ToolId.of("arith", 2);
   static final int DEFAULT_PLACES = 2;
-  /** Canonical expressions are printed by this tool, and may be longer than the caller's text. */
-  private static final int CANONICAL_MAX_LENGTH = 20_000;
   /** Working precisions of the bounded evaluation, in significant digits; the last is the limit. */
   private static final int FIRST_PRECISION = 50;
   static final int MAX_PRECISION = 2_000;
@@ -187,7 +185,7 @@ public final class ArithToolV2 implements Tool {
 
   private static PhraseParser.Parsed read(String expr) throws ToolException {
     try {
-      return PhraseParser.parse(expr, PhraseParser.MAX_LENGTH, PhraseParser.Readings.refuseAll());
+      return PhraseParser.parse(expr, PhraseParser.Limits.CALLER, PhraseParser.Readings.refuseAll());
     } catch (PhraseParser.Ambiguous a) {
       throw new ToolException(new ToolError(ErrorCode.SYNTAX_ERROR, "ambiguous: " + a.getMessage()
           + "; write one of the readings", readings(expr, a.kind)));
@@ -198,7 +196,7 @@ public final class ArithToolV2 implements Tool {
 
   private static Node readCanonical(String expr) throws ToolException {
     try {
-      return PhraseParser.parse(expr, CANONICAL_MAX_LENGTH, PhraseParser.Readings.refuseAll()).expr();
+      return PhraseParser.parse(expr, PhraseParser.Limits.CANONICAL, PhraseParser.Readings.refuseAll()).expr();
     } catch (PhraseParser.Ambiguous | PhraseParser.UnknownWord e) {
       throw new ToolException(ErrorCode.SYNTAX_ERROR, e.getMessage()); // not a canonical expression
     }
@@ -209,7 +207,7 @@ public final class ArithToolV2 implements Tool {
     List<String> out = new ArrayList<>(2);
     for (PhraseParser.Choice c : new PhraseParser.Choice[] {PhraseParser.Choice.FIRST, PhraseParser.Choice.SECOND}) {
       try {
-        out.add(Canonical.print(PhraseParser.parse(expr, PhraseParser.MAX_LENGTH,
+        out.add(Canonical.print(PhraseParser.parse(expr, PhraseParser.Limits.CALLER,
             PhraseParser.Readings.refuseAll().with(kind, c)).expr()));
       } catch (ToolException | PhraseParser.Ambiguous | PhraseParser.UnknownWord e) {
         return List.of();
@@ -227,7 +225,7 @@ public final class ArithToolV2 implements Tool {
       // "a 15% tip on $60": without the unknown noun, "on" says what "of" says.
       text = text.substring(0, u.start) + (word.equalsIgnoreCase("on") ? " of " : " ") + text.substring(u.end);
       try {
-        return List.of(Canonical.print(PhraseParser.parse(text, PhraseParser.MAX_LENGTH,
+        return List.of(Canonical.print(PhraseParser.parse(text, PhraseParser.Limits.CALLER,
             PhraseParser.Readings.refuseAll()).expr()));
       } catch (PhraseParser.UnknownWord next) {
         u = next;

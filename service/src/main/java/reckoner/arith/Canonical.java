@@ -31,7 +31,7 @@ final class Canonical {
       sb.append(c.name());
     } else if (node instanceof Node.Neg n) {
       sb.append('-');
-      child(n.x(), level(n.x()) < POWER, sb);
+      child(n.x(), level(n.x()) < POWER && !(n.x() instanceof Node.Neg), sb); // --x, not -(-(x))
     } else if (node instanceof Node.Bin b) {
       binary(b, sb);
     } else if (node instanceof Node.PercentChange p) {

@@ -176,10 +176,10 @@ final class PhraseFrame {
       return null;
     }
     if (isPlaces && (count < -20 || count > 40)) {
-      throw new ToolException(ErrorCode.INVALID_ARGUMENT, "the phrase asks for " + count + " decimal places; places must lie between -20 and 40");
+      throw new ToolException(ErrorCode.LIMIT_EXCEEDED, "the phrase asks for " + count + " decimal places; places must lie between -20 and 40");
     }
     if (isDigits && (count < 1 || count > 34)) {
-      throw new ToolException(ErrorCode.INVALID_ARGUMENT, "the phrase asks for " + count + " significant digits; digits must lie between 1 and 34");
+      throw new ToolException(ErrorCode.LIMIT_EXCEEDED, "the phrase asks for " + count + " significant digits; digits must lie between 1 and 34");
     }
     return isPlaces ? new RoundingPhrase(s, count, null, mode) : new RoundingPhrase(s, null, count, mode);
   }

@@ -94,8 +94,18 @@ final class PhraseParser extends WordPhrases {
   /** The tree, and the rounding the phrase asked for (empty where it asked for none). */
   record Parsed(Node expr, Optional<Integer> places, Optional<Integer> digits, Optional<String> rounding) {}
 
-  static final int MAX_LENGTH = 1000;
-  static final int MAX_DEPTH = 50;
+  /**
+   * Bounds on one text: its length, how deep parentheses nest, how deep the expression nests. A
+   * caller's text gets {@link #CALLER}; a canonical expression, which this tool printed and which
+   * spells out in parentheses what the caller wrote without them (sqrt sqrt 2 is sqrt(sqrt(2))),
+   * gets {@link #CANONICAL}, wide enough for every canonical form of a text within CALLER.
+   */
+  record Limits(int length, int parentheses, int nesting) {
+    static final Limits CALLER = new Limits(1000, 50, 200);
+    static final Limits CANONICAL = new Limits(20_000, 250, 500);
+  }
+
+  static final int MAX_LENGTH = Limits.CALLER.length();
 
   /** One-word function names written as in formulas, and what they mean. */
   private static final Map<String, Fn> FUNCTION_NAMES = Map.ofEntries(
@@ -119,16 +129,19 @@ final class PhraseParser extends WordPhrases {
   private int depth;
   private int parenDepth;
 
-  private PhraseParser(String text, Readings readings) {
+  private final Limits limits;
+
+  private PhraseParser(String text, Limits limits, Readings readings) {
     super(text, readings);
+    this.limits = limits;
   }
 
-  static Parsed parse(String text, int maxLength, Readings readings) throws ToolException, Ambiguous, UnknownWord {
-    if (text.length() > maxLength) {
+  static Parsed parse(String text, Limits limits, Readings readings) throws ToolException, Ambiguous, UnknownWord {
+    if (text.length() > limits.length()) {
       throw new ToolException(ErrorCode.LIMIT_EXCEEDED,
-          "the expression is " + text.length() + " characters long; the limit is " + maxLength);
+          "the expression is " + text.length() + " characters long; the limit is " + limits.length());
     }
-    return new PhraseParser(text, readings).parseAll();
+    return new PhraseParser(text, limits, readings).parseAll();
   }
 
   /** The phrase: its frame (PhraseFrame), then the expression, which must use every lexeme. */
@@ -580,8 +593,8 @@ final class PhraseParser extends WordPhrases {
   @Override
   Node group() throws ToolException, Ambiguous, UnknownWord {
     Lexeme open = toks.get(pos);
-    if (++parenDepth > MAX_DEPTH) {
-      throw new ToolException(ErrorCode.LIMIT_EXCEEDED, "parentheses nest deeper than " + MAX_DEPTH + " levels");
+    if (++parenDepth > limits.parentheses()) {
+      throw new ToolException(ErrorCode.LIMIT_EXCEEDED, "parentheses nest deeper than " + limits.parentheses() + " levels");
     }
     pos++;
     boolean call = inCallArguments;
@@ -809,8 +822,8 @@ final class PhraseParser extends WordPhrases {
   @Override
   List<Node> arguments(Lexeme name) throws ToolException, Ambiguous, UnknownWord {
     Lexeme open = toks.get(pos);
-    if (++parenDepth > MAX_DEPTH) {
-      throw new ToolException(ErrorCode.LIMIT_EXCEEDED, "parentheses nest deeper than " + MAX_DEPTH + " levels");
+    if (++parenDepth > limits.parentheses()) {
+      throw new ToolException(ErrorCode.LIMIT_EXCEEDED, "parentheses nest deeper than " + limits.parentheses() + " levels");
     }
     pos++;
     // sum([1, 2, 3]), max([3, 7]): a list written as one bracketed argument, as in Python.
@@ -857,8 +870,8 @@ final class PhraseParser extends WordPhrases {
   // =====================================================================================
 
   private void enter() throws ToolException {
-    if (++depth > 200) {
-      throw new ToolException(ErrorCode.LIMIT_EXCEEDED, "the expression nests deeper than 200 levels");
+    if (++depth > limits.nesting()) {
+      throw new ToolException(ErrorCode.LIMIT_EXCEEDED, "the expression nests deeper than " + limits.nesting() + " levels");
     }
   }
 

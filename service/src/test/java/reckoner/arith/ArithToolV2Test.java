@@ -89,6 +89,22 @@ final class ArithToolV2Test {
     assertEquals("0.667", eval("2/3 to 3 decimal places", "places", 3)); // agreeing is fine
   }
 
+  @Test
+  void roundingPhraseBeyondTheLimits_isLimitExceeded() {
+    // The text reads, but asks for more than the places and digits arguments allow: 422, like any
+    // text that cannot be computed, not 400 (the request itself is well formed).
+    assertEquals(ErrorCode.LIMIT_EXCEEDED, error("1/3 to 50 decimal places").code());
+    assertEquals(ErrorCode.LIMIT_EXCEEDED, error("1/3 to 40 significant figures").code());
+  }
+
+  @Test
+  void deepPhrases_haveCanonicalFormsThatReadBack() {
+    // Words and prefix operators nest without parentheses; the canonical form spells them out.
+    assertEquals("1", eval("sqrt ".repeat(190) + "4"));
+    assertEquals("-1", eval("-".repeat(199) + "1"));
+    assertEquals(ErrorCode.LIMIT_EXCEEDED, error("-".repeat(201) + "1").code());
+  }
+
   /* ------- what version 1 answered differently (arith@1 answers are frozen in golden/v1.jsonl) ------- */
 
   @Test
