@@ -118,6 +118,27 @@ final class ArithPhrasingsTest {
   }
 
   @Test
+  void textAndStructuredForms_shareOneCacheEntry() {
+    Invoker cached = new Invoker(ToolCatalog.of(ToolRegistry.of(Tools.demo()), new SpecLoader(JSON)), CLOCK,
+        reckoner.call.AnswerCache.ofMaximumSize(10_000));
+    int hits = 0;
+    for (JsonNode c : cases) {
+      ObjectNode text = c.has("args") ? (ObjectNode) c.get("args").deepCopy() : JSON.createObjectNode();
+      ObjectNode expr = text.deepCopy();
+      text.put("text", c.get("text").asString());
+      expr.put("expr", c.get("text").asString());
+      Outcome first = cached.invoke(new CallRequest("arith", OptionalInt.empty(), text, null, null, null));
+      Outcome second = cached.invoke(new CallRequest("arith", OptionalInt.empty(), expr, null, null, null));
+      if (first.canonical().isPresent()) {
+        assertTrue(second.cached(), () -> c.get("text").asString() + " in the expr form missed the text form's cache entry");
+        assertEquals(first.text(), second.text());
+        hits++;
+      }
+    }
+    assertTrue(hits >= cases.size() * 9 / 10, "cache hits: " + hits);
+  }
+
+  @Test
   void versionOne_answersFewerOfTheSameTexts() {
     int answered = 0;
     int right = 0;
