@@ -1,3 +1,5 @@
+import java.lang.management.ManagementFactory;
+import java.lang.management.ThreadMXBean;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
@@ -51,24 +53,39 @@ public final class ArithBenchmark {
         print("arith@2 phrasings arith@1 refuses", phrases, base);
       }
     }
-    System.out.println("# hostile inputs, arith@2, " + HOSTILE_SAMPLES + " calls each after a warm-up round: median and max");
+    System.out.println("# hostile inputs, arith@2, " + HOSTILE_SAMPLES + " calls each after a warm-up round:"
+        + " wall-clock median and max, and the median of the calling thread's CPU time (unaffected by other load)");
     for (String h : HOSTILE) {
       measure(v2, List.of(h), 3);
-      long[] t = measure(v2, List.of(h), HOSTILE_SAMPLES);
-      System.out.printf(Locale.ROOT, "  %-44s p50=%9.1f us  max=%9.1f us  -> %s%n", clip(h, 44), t[t.length / 2] / 1e3,
-          t[t.length - 1] / 1e3, clip(answer(v2, h), 60));
+      long[] cpu = new long[HOSTILE_SAMPLES];
+      long[] t = measure(v2, List.of(h), HOSTILE_SAMPLES, cpu);
+      System.out.printf(Locale.ROOT, "  %-44s p50=%9.1f us  max=%9.1f us  cpu p50=%9.1f us  -> %s%n", clip(h, 44),
+          t[t.length / 2] / 1e3, t[t.length - 1] / 1e3, cpu[cpu.length / 2] / 1e3, clip(answer(v2, h), 50));
     }
   }
 
   private static long[] measure(Tool tool, List<String> exprs, int samples) {
+    return measure(tool, exprs, samples, null);
+  }
+
+  /** Sorted wall-clock times of each call; {@code cpu}, if given, receives the sorted CPU times. */
+  private static long[] measure(Tool tool, List<String> exprs, int samples, long[] cpu) {
+    ThreadMXBean threads = ManagementFactory.getThreadMXBean();
     long[] t = new long[samples];
     for (int i = 0; i < samples; i++) {
       String e = exprs.get(i % exprs.size());
+      long cpuStart = cpu == null ? 0 : threads.getCurrentThreadCpuTime();
       long start = System.nanoTime();
       answer(tool, e);
       t[i] = System.nanoTime() - start;
+      if (cpu != null) {
+        cpu[i] = threads.getCurrentThreadCpuTime() - cpuStart;
+      }
     }
     Arrays.sort(t);
+    if (cpu != null) {
+      Arrays.sort(cpu);
+    }
     return t;
   }
 

@@ -168,16 +168,27 @@ public final class ArithToolV2 implements Tool {
     }
   }
 
-  /** Enough digits for the asked rounding, then four times as many; -1 past the limit. */
+  /**
+   * The next working precision: bounds that are {@code w} apart at precision p are about
+   * {@code w * 10^(p - next)} apart at the next, so the precision that narrows them below the
+   * asked rounding's step is estimated from them; at least four times the current one; -1 when
+   * even the limit would not do (catastrophic cancellation), so hopeless cases stop early.
+   */
   private static int nextPrecision(int current, BoundedEvaluator.Bounds b, Optional<Integer> digits, int places) {
     if (current >= MAX_PRECISION) {
       return -1;
     }
-    int needed = digits.isPresent() ? digits.get() : places;
-    if (b != null && b.hi().signum() != 0 && digits.isEmpty()) {
-      needed += Math.max(0, b.hi().abs().precision() - b.hi().abs().scale());
+    int next = current * 4;
+    if (b != null && b.hi().compareTo(b.lo()) > 0) {
+      BigDecimal width = b.hi().subtract(b.lo());
+      BigDecimal magnitude = b.hi().abs().max(b.lo().abs());
+      int step = digits.isPresent() ? DecimalMath.exponentOf(magnitude) - digits.get() + 1 : -places;
+      int needed = current + (DecimalMath.exponentOf(width) - step) + 10;
+      if (needed > MAX_PRECISION) {
+        return -1;
+      }
+      next = Math.max(next, needed);
     }
-    int next = Math.max(current * 4, needed + 30);
     return Math.min(next, MAX_PRECISION);
   }
 
