@@ -5,7 +5,7 @@
 set -euo pipefail
 here="$(cd "$(dirname "$0")" && pwd)"
 root="$(cd "$here/../.." && pwd)"
-(cd "$root" && mvn -B -q -DskipTests package 2>&1 | grep -v "^\x1b\[0m$" || true)
+(cd "$root" && mvn -B -q -DskipTests package)
 jar="$root/service/target/reckoner.jar"
 echo "# $(date -u +%Y-%m-%dT%H:%M:%SZ) $(nproc) cores, $(java -version 2>&1 | head -1), load average:$(uptime | sed 's/.*load average://')"
 java -Xms256m -Xmx256m -Dorg.slf4j.simpleLogger.defaultLogLevel=warn -cp "$jar" "$here/ArithBenchmark.java"
