@@ -2,6 +2,7 @@ package reckoner;
 
 import java.util.List;
 import reckoner.arith.ArithTool;
+import reckoner.arith.ArithToolV2;
 import reckoner.dates.DatesTool;
 import reckoner.dates.DatesToolV2;
 import reckoner.data.DataLoadException;
@@ -21,6 +22,7 @@ public final class Tools {
   public static List<Tool> standard(FactStore facts, SearchStore search) {
     return List.of(
         new ArithTool(),
+        new ArithToolV2(),
         new DatesTool(),
         new DatesToolV2(),
         new UnitsTool(),

@@ -36,14 +36,14 @@ final class InvokerTest {
   void invoke_withoutVersion_usesTheNewest() {
     Outcome o = call("arith", OptionalInt.empty(), "{\"expr\":\"2+2\"}");
     assertEquals("4", o.text());
-    assertEquals("arith@1", o.tool().get().toString());
+    assertEquals("arith@2", o.tool().get().toString());
   }
 
   @Test
   void invoke_unknownToolOrVersion_isUnknownToolWithSuggestions() {
     Outcome o = call("arith", OptionalInt.of(9), "{\"expr\":\"1\"}");
     assertEquals(ErrorCode.UNKNOWN_TOOL, o.error().get().code());
-    assertEquals("error: unknown_tool: no version 9 of tool 'arith'; served versions: [1] (did you mean: arith@1?)", o.text());
+    assertEquals("error: unknown_tool: no version 9 of tool 'arith'; served versions: [1, 2] (did you mean: arith@1, arith@2?)", o.text());
     assertEquals(ErrorCode.UNKNOWN_TOOL, call("nope", OptionalInt.of(1), "{}").error().get().code());
     assertEquals(ErrorCode.UNKNOWN_TOOL, call("../etc", OptionalInt.of(1), "{}").error().get().code());
   }

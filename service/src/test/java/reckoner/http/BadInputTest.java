@@ -59,6 +59,10 @@ final class BadInputTest {
     return new Case(name, "POST", INVOKE, "application/json", null, body.getBytes(StandardCharsets.UTF_8), status, code);
   }
 
+  static Case json2(String name, String body, int status, String code) {
+    return new Case(name, "POST", "/v1/tools/arith/2/invoke", "application/json", null, body.getBytes(StandardCharsets.UTF_8), status, code);
+  }
+
   static Stream<Case> cases() {
     List<Case> c = new ArrayList<>();
     // ---- broken JSON ----
@@ -123,9 +127,20 @@ final class BadInputTest {
     c.add(json("script injection", "{\"expr\":\"<script>alert(1)</script>\"}", 422, "syntax_error"));
     c.add(json("java call", "{\"expr\":\"java.lang.Runtime.getRuntime()\"}", 422, "syntax_error"));
     c.add(json("unbalanced", "{\"expr\":\"((1)\"}", 422, "syntax_error"));
+    // ---- arith@2: every text it cannot read is 422 syntax_error, a contradictory request 400 ----
+    c.add(json2("v2: words that do not read", "{\"text\":\"what is 2 plus\"}", 422, "syntax_error"));
+    c.add(json2("v2: a bidirectional override", "{\"text\":\"2\\u202e+2\"}", 422, "syntax_error"));
+    c.add(json2("v2: a zero-width space", "{\"expr\":\"2\\u200b+2\"}", 422, "syntax_error"));
+    c.add(json2("v2: a phrase with two readings", "{\"text\":\"6/2(1+2)\"}", 422, "syntax_error"));
+    c.add(json2("v2: a decimal comma", "{\"text\":\"3,5 + 1\"}", 422, "syntax_error"));
+    c.add(json2("v2: white space only", "{\"expr\":\"   \"}", 422, "syntax_error"));
+    c.add(json2("v2: expression over 1000 characters", "{\"text\":\"" + "1+".repeat(600) + "1\"}", 422, "limit_exceeded"));
+    c.add(json2("v2: a rounding phrase against places", "{\"text\":\"2/3 to 3 decimal places\",\"places\":2}", 400, "invalid_argument"));
+    c.add(new Case("v2: plain text that does not read", "POST", "/v1/tools/arith/2/invoke", "text/plain", null,
+        "what is".getBytes(StandardCharsets.UTF_8), 422, "syntax_error"));
     // ---- unknown tool or version ----
     c.add(new Case("unknown tool", "POST", "/v1/tools/nope/1/invoke", "application/json", null, b("{\"expr\":\"1\"}"), 404, "unknown_tool"));
-    c.add(new Case("unknown version", "POST", "/v1/tools/arith/2/invoke", "application/json", null, b("{\"expr\":\"1\"}"), 404, "unknown_tool"));
+    c.add(new Case("unknown version", "POST", "/v1/tools/arith/9/invoke", "application/json", null, b("{\"expr\":\"1\"}"), 404, "unknown_tool"));
     c.add(new Case("version zero", "POST", "/v1/tools/arith/0/invoke", "application/json", null, b("{\"expr\":\"1\"}"), 404, "unknown_tool"));
     c.add(new Case("version with leading zero", "POST", "/v1/tools/arith/01/invoke", "application/json", null, b("{\"expr\":\"1\"}"), 404, "unknown_tool"));
     c.add(new Case("version not a number", "POST", "/v1/tools/arith/latest!/invoke", "application/json", null, b("{\"expr\":\"1\"}"), 404, "unknown_tool"));
