@@ -127,6 +127,9 @@ public final class Main implements Runnable {
     @Option(names = "--open-access", description = "Allow a non-loopback --host without API keys.")
     Boolean openAccess;
 
+    @Option(names = "--access-log", negatable = true, description = "Log every HTTP request as one line (default true).")
+    Boolean accessLog;
+
     @Override
     public Integer call() throws InterruptedException {
       settings.put("port", port);
@@ -134,6 +137,7 @@ public final class Main implements Runnable {
       settings.put("max-body-bytes", maxBodyBytes);
       settings.put("max-batch-bytes", maxBatchBytes);
       settings.put("open-access", openAccess);
+      settings.put("access-log", accessLog);
       Service service;
       try {
         service = Service.start(settings.resolve(), Clock.systemUTC());

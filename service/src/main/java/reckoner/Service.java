@@ -1,19 +1,9 @@
 package reckoner;
 
 import io.javalin.Javalin;
-import io.micrometer.core.instrument.binder.jvm.JvmGcMetrics;
-import io.micrometer.core.instrument.binder.jvm.JvmMemoryMetrics;
-import io.micrometer.core.instrument.binder.jvm.JvmThreadMetrics;
-import io.micrometer.core.instrument.binder.system.ProcessorMetrics;
-import io.micrometer.core.instrument.binder.system.UptimeMetrics;
-import io.micrometer.prometheusmetrics.PrometheusConfig;
 import io.micrometer.prometheusmetrics.PrometheusMeterRegistry;
-import io.micrometer.core.instrument.DistributionSummary;
-import io.micrometer.core.instrument.FunctionCounter;
-import io.micrometer.core.instrument.Gauge;
-import io.micrometer.core.instrument.Timer;
-import io.micrometer.core.instrument.binder.cache.CaffeineCacheMetrics;
 import java.time.Clock;
+import java.time.Instant;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import org.slf4j.Logger;
@@ -22,6 +12,7 @@ import reckoner.config.ServiceConfig;
 import reckoner.facts.FactsWatcher;
 import reckoner.ledger.LedgerWriter;
 import reckoner.http.HttpApi;
+import reckoner.http.Monitoring;
 import reckoner.spec.Json;
 import reckoner.spec.OpenApi;
 import reckoner.spec.ToolCatalog;
@@ -40,56 +31,33 @@ public final class Service implements AutoCloseable {
   private final ExecutorService calls;
   private final FactsWatcher watcher; // null when polling is off
   private final Engine engine;
+  private final Monitoring monitoring;
 
-  private Service(Javalin http, ExecutorService calls, FactsWatcher watcher, Engine engine) {
+  private Service(Javalin http, ExecutorService calls, FactsWatcher watcher, Engine engine, Monitoring monitoring) {
     this.http = http;
     this.calls = calls;
     this.watcher = watcher;
     this.engine = engine;
+    this.monitoring = monitoring;
   }
 
   public static Service start(ServiceConfig config, Clock clock) {
+    Instant started = clock.instant();
     JsonMapper json = Json.newMapper();
-    PrometheusMeterRegistry metrics = new PrometheusMeterRegistry(PrometheusConfig.DEFAULT);
-    Timer commitTime = Timer.builder("reckoner.ledger.commit").description("Time to commit one group of invocations")
-        .publishPercentileHistogram().register(metrics);
-    DistributionSummary commitSize = DistributionSummary.builder("reckoner.ledger.commit.records")
-        .description("Invocations per group commit").publishPercentileHistogram().register(metrics);
-    Engine engine = Engine.build(config, clock, json, (records, nanos) -> {
-      commitTime.record(nanos, java.util.concurrent.TimeUnit.NANOSECONDS);
-      commitSize.record(records);
-    });
+    PrometheusMeterRegistry metrics = ServiceMetrics.registry();
+    Engine engine = Engine.build(config, clock, json, ServiceMetrics.commits(metrics));
     ToolCatalog catalog = engine.catalog();
     ExecutorService calls = Executors.newFixedThreadPool(Engine.callThreads(config), daemonThreads("reckoner-call-"));
-
-    new JvmMemoryMetrics().bindTo(metrics);
-    new JvmGcMetrics().bindTo(metrics);
-    new JvmThreadMetrics().bindTo(metrics);
-    new ProcessorMetrics().bindTo(metrics);
-    new UptimeMetrics().bindTo(metrics);
-    CaffeineCacheMetrics.monitor(metrics, engine.cache().caffeine(), "answers");
-    FunctionCounter.builder("reckoner.facts.reloads", engine.facts(), f -> f.reloadSuccesses())
-        .description("Fact reloads applied").tag("result", "applied").register(metrics);
-    FunctionCounter.builder("reckoner.facts.reloads", engine.facts(), f -> f.reloadFailures())
-        .description("Fact reloads refused (a bad file; the old data kept serving)").tag("result", "refused").register(metrics);
-    LedgerWriter w = engine.writer();
-    Gauge.builder("reckoner.ledger.queue.depth", w, LedgerWriter::queueDepth).description("Invocations waiting to be committed")
-        .register(metrics);
-    Gauge.builder("reckoner.ledger.healthy", w, x -> x.isHealthy() ? 1 : 0).description("1 while the ledger takes writes")
-        .register(metrics);
-    FunctionCounter.builder("reckoner.ledger.records.written", w, LedgerWriter::recordsWritten)
-        .description("Invocations committed").register(metrics);
-    FunctionCounter.builder("reckoner.ledger.write.failures", w, LedgerWriter::writeFailures)
-        .description("Ledger write attempts that failed").register(metrics);
-    FunctionCounter.builder("reckoner.ledger.records.refused", w, LedgerWriter::recordsRefused)
-        .description("Invocations refused (queue full, store down, closed); their calls were answered 503").register(metrics);
+    ServiceMetrics.bind(metrics, engine, VERSION);
     FactsWatcher watcher = config.factsPollMillis() > 0
         ? FactsWatcher.over(engine.facts(), java.time.Duration.ofMillis(config.factsPollMillis())).start()
         : null;
 
     HttpApi.Settings settings = new HttpApi.Settings(config.maxBodyBytes(), config.maxBatchBytes(), engine.markup(),
         OpenApi.assemble(catalog, json, VERSION), engine::isReady, calls, engine.facts(), engine.ledger());
-    Javalin http = HttpApi.create(engine.invoker(), metrics, json, settings);
+    Monitoring monitoring = new Monitoring(metrics, engine.writer(), config.cacheSize() > 0 ? engine.cache().caffeine() : null,
+        new Monitoring.About(VERSION, instanceName(config), config.ledger(), started), config.accessLog(), clock);
+    Javalin http = HttpApi.create(engine.invoker(), monitoring, json, settings);
     http.start(config.host(), config.port());
     LOG.info("serving {} tool versions on http://{}:{} (data dir {})", catalog.all().size(), config.host(), http.port(),
         config.dataDir());
@@ -98,7 +66,16 @@ public final class Service implements AutoCloseable {
     } else {
       LOG.info("no API keys configured: listening on loopback only");
     }
-    return new Service(http, calls, watcher, engine);
+    return new Service(http, calls, watcher, engine, monitoring);
+  }
+
+  /** The host name and port, as the status page names this process; no name lookup beyond the local one. */
+  private static String instanceName(ServiceConfig config) {
+    try {
+      return java.net.InetAddress.getLocalHost().getHostName() + ":" + config.port();
+    } catch (java.net.UnknownHostException e) {
+      return config.host() + ":" + config.port();
+    }
   }
 
   static java.util.concurrent.ThreadFactory daemonThreads(String prefix) {
@@ -115,13 +92,28 @@ public final class Service implements AutoCloseable {
     return http.port();
   }
 
+  /** Stops taking requests, lets those in flight finish, drains the ledger queue, and logs what it drained. */
   @Override
   public void close() {
+    LedgerWriter writer = engine.writer();
+    int inFlight = monitoring.requestsInFlight();
+    int queuedAtStart = writer.queueDepth();
+    LOG.atInfo().addKeyValue("http_in_flight", inFlight).addKeyValue("ledger_queued", queuedAtStart)
+        .log("stopping: draining {} HTTP requests in flight and {} ledger records queued", inFlight, queuedAtStart);
+    long start = System.nanoTime();
+    long writtenBefore = writer.recordsWritten();
     if (watcher != null) {
       watcher.close();
     }
     http.stop(); // no new calls; calls in flight finish
     calls.shutdown();
+    int queued = writer.queueDepth();
     engine.close(); // drains the ledger queue before returning
+    long written = writer.recordsWritten() - writtenBefore;
+    long millis = (System.nanoTime() - start) / 1_000_000;
+    LOG.atInfo().addKeyValue("ledger_written_in_drain", written).addKeyValue("ledger_queued_after_http", queued)
+        .addKeyValue("ledger_not_written", writer.recordsLost()).addKeyValue("drain_ms", millis)
+        .log("stopped in {} ms: {} ledger records written while draining ({} were queued when HTTP stopped), {} not written",
+            millis, written, queued, writer.recordsLost());
   }
 }

@@ -47,13 +47,14 @@ import java.util.TreeSet;
  * @param retentionDays records older than this many days are deleted (0: kept)
  * @param retentionMaxRecords the oldest records beyond this count are deleted (0: no limit)
  * @param retentionMaxBytes the oldest records are deleted while the ledger's records take more bytes than this (0: no limit)
+ * @param accessLog whether every HTTP request is logged as one line (logger {@code reckoner.access})
  */
 public record ServiceConfig(String host, int port, Path dataDir, long maxBodyBytes, boolean openAccess,
     long maxBatchBytes, long cacheSize, int callThreads, String markupOpen, String markupSeparator, String markupClose,
     List<Path> factsDirs, boolean factsDemo, String factsDefaultSet, long factsPollMillis,
     String ledger, String ledgerUrl, String ledgerUser, String ledgerPassword, int ledgerPoolSize, boolean ledgerSync,
     String durability, int ledgerQueue, long retentionDays, long retentionMaxRecords,
-    long retentionMaxBytes) {
+    long retentionMaxBytes, boolean accessLog) {
   /** Every setting with its default. The README's settings table lists the same. */
   public static final Map<String, String> DEFAULTS = defaults();
 
@@ -124,6 +125,7 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     d.put("retention-days", "0");
     d.put("retention-max-records", "0");
     d.put("retention-max-bytes", "0");
+    d.put("access-log", "true");
     return java.util.Collections.unmodifiableMap(d);
   }
 
@@ -162,7 +164,8 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
         integer(s, "ledger-queue"),
         longValue(s, "retention-days"),
         longValue(s, "retention-max-records"),
-        byteSize(s, "retention-max-bytes"));
+        byteSize(s, "retention-max-bytes"),
+        bool(s, "access-log"));
   }
 
   /**

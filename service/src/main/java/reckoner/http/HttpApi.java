@@ -3,7 +3,6 @@ package reckoner.http;
 import io.javalin.Javalin;
 import io.javalin.http.Context;
 import io.javalin.http.HttpResponseException;
-import io.micrometer.prometheusmetrics.PrometheusMeterRegistry;
 import java.util.Arrays;
 import java.util.Optional;
 import java.util.concurrent.ExecutorService;
@@ -33,26 +32,25 @@ public final class HttpApi {
 
   private HttpApi() {}
 
-  public static Javalin create(Invoker invoker, PrometheusMeterRegistry metrics, JsonMapper json, Settings settings) {
+  public static Javalin create(Invoker invoker, Monitoring monitoring, JsonMapper json, Settings settings) {
     Responses responses = new Responses(json);
     Bodies bodies = new Bodies(settings.maxBodyBytes());
-    CallMetrics callMetrics = new CallMetrics(metrics);
+    CallMetrics callMetrics = monitoring.calls();
     ToolRoutes tools = new ToolRoutes(invoker, responses, callMetrics, bodies);
     BatchRoutes batch = new BatchRoutes(invoker, responses, callMetrics, new Bodies(settings.maxBatchBytes()),
         settings.callExecutor());
     FactsRoutes facts = new FactsRoutes(settings.facts(), responses);
     LedgerRoutes ledger = new LedgerRoutes(settings.ledger(), responses);
-    StatusPage status = new StatusPage(callMetrics, responses, java.time.Clock.systemUTC());
     SpliceRoutes splice = new SpliceRoutes(new Filler(invoker), responses, callMetrics, new Bodies(settings.maxBatchBytes()),
         settings.markup());
     byte[] openApi = json.writeValueAsBytes(settings.openApi());
 
     return Javalin.create(config -> {
       config.startup.showJavalinBanner = false;
-      config.events.serverStopped(status::stop);
       config.http.maxRequestSize = Math.max(settings.maxBodyBytes(), settings.maxBatchBytes());
       config.http.prefer405over404 = true;
       config.router.ignoreTrailingSlashes = true;
+      monitoring.install(config, responses); // request ids, HTTP metrics, access log; /metrics, /status, /status.json
 
       config.routes.get("/v1/tools", tools::list);
       config.routes.get("/v1/tools/{name}/{version}", tools::describe);
@@ -63,10 +61,8 @@ public final class HttpApi {
       config.routes.get("/openapi.json", ctx -> ctx.contentType(MediaTypes.JSON).result(openApi));
       config.routes.get("/health/live", ctx -> responses.json(ctx, 200, responses.object().put("status", "up")));
       config.routes.get("/health/ready", ctx -> ready(ctx, responses, settings.ready()));
-      config.routes.get("/metrics", ctx -> ctx.contentType("text/plain; version=0.0.4; charset=utf-8").result(metrics.scrape()));
       config.routes.get("/v1/invocations", ledger::query);
       config.routes.get("/v1/invocations/export", ledger::export);
-      config.routes.get("/status", status::show);
       config.routes.get("/v1/admin/facts", facts::show);
       config.routes.post("/v1/admin/facts/reload", facts::reload);
       config.routes.get("/problems/{code}", ctx -> problemType(ctx, responses));
