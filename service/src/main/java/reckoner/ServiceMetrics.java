@@ -75,6 +75,8 @@ final class ServiceMetrics {
     new UptimeMetrics().bindTo(registry);
     Gauge.builder("reckoner.build.info", () -> 1).description("Always 1; the version label says which build runs")
         .tag("version", version).register(registry);
+    Gauge.builder("reckoner.ready", engine, e -> e.isReady() ? 1 : 0)
+        .description("1 while GET /health/ready answers 200: tools loaded and the ledger taking writes").register(registry);
     CaffeineCacheMetrics.monitor(registry, engine.cache().caffeine(), "answers");
     FunctionCounter.builder("reckoner.facts.reloads", engine.facts(), f -> f.reloadSuccesses())
         .description("Fact reloads applied").tag("result", "applied").register(registry);
