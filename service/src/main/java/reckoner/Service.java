@@ -69,12 +69,12 @@ public final class Service implements AutoCloseable {
     return new Service(http, calls, watcher, engine, monitoring);
   }
 
-  /** The host name and port, as the status page names this process; no name lookup beyond the local one. */
+  /** The host name, as the status page names this process (a pod's name on Kubernetes). */
   private static String instanceName(ServiceConfig config) {
     try {
-      return java.net.InetAddress.getLocalHost().getHostName() + ":" + config.port();
+      return java.net.InetAddress.getLocalHost().getHostName();
     } catch (java.net.UnknownHostException e) {
-      return config.host() + ":" + config.port();
+      return config.host();
     }
   }
 

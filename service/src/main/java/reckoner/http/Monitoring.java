@@ -21,7 +21,7 @@ public final class Monitoring {
    * What the status page says of the process.
    *
    * @param version the service's version
-   * @param instance which process this is (a host name and port)
+   * @param instance which process this is: its host name (a pod name on Kubernetes)
    * @param ledgerBackend {@code sqlite} or {@code postgresql}
    * @param started when the process started
    */
