@@ -50,11 +50,18 @@ final class ServiceProcess implements AutoCloseable {
 
   /** Starts {@code java -jar reckoner.jar serve ARGS} and waits until it listens. */
   static ServiceProcess serve(String... args) {
+    return serve(java.util.Map.of(), args);
+  }
+
+  /** Starts {@code java -jar reckoner.jar serve ARGS} with more environment variables, and waits until it listens. */
+  static ServiceProcess serve(java.util.Map<String, String> env, String... args) {
     List<String> command = new ArrayList<>(List.of(Path.of(System.getProperty("java.home"), "bin", "java").toString(),
         "-Xmx256m", "-XX:TieredStopAtLevel=1", "-jar", jar().toString(), "serve"));
     command.addAll(List.of(args));
     try {
-      return new ServiceProcess(new ProcessBuilder(command).redirectErrorStream(true).start());
+      ProcessBuilder builder = new ProcessBuilder(command).redirectErrorStream(true);
+      builder.environment().putAll(env);
+      return new ServiceProcess(builder.start());
     } catch (IOException e) {
       throw new UncheckedIOException(e);
     } catch (InterruptedException e) {
