@@ -38,7 +38,7 @@ public final class CallMetrics {
   private final MeterRegistry registry;
   private final Counter cacheHits;
   /** The meters of one label set, found without building a string key on every call. */
-  private final ConcurrentHashMap<Labels, Counter> counters = new ConcurrentHashMap<>();
+  private final ConcurrentHashMap<Labels, Meters> byLabels = new ConcurrentHashMap<>();
   private final ConcurrentHashMap<ToolLabels, Timer> timers = new ConcurrentHashMap<>();
 
   /** A tool version (null for an unknown tool) and an outcome (null for ok). */
@@ -46,6 +46,9 @@ public final class CallMetrics {
 
   /** The tool and version labels of one tool version. */
   private record ToolLabels(String tool, String version) {}
+
+  /** The counter of one label set and the timer of its tool version. */
+  private record Meters(Counter calls, Timer duration) {}
 
   public CallMetrics(MeterRegistry registry) {
     this.registry = registry;
@@ -81,8 +84,8 @@ public final class CallMetrics {
   List<ToolStats> snapshot() {
     Map<ToolLabels, Map<String, Long>> outcomes = new TreeMap<>(
         java.util.Comparator.comparing(ToolLabels::tool).thenComparing(ToolLabels::version));
-    counters.forEach((labels, counter) -> outcomes.computeIfAbsent(toolLabels(labels), k -> new TreeMap<>())
-        .merge(outcome(labels), (long) counter.count(), Long::sum));
+    byLabels.forEach((labels, meters) -> outcomes.computeIfAbsent(toolLabels(labels), k -> new TreeMap<>())
+        .merge(outcome(labels), (long) meters.calls().count(), Long::sum));
     List<ToolStats> out = new ArrayList<>();
     outcomes.forEach((tool, byOutcome) -> out.add(new ToolStats(tool.tool(), tool.version(), byOutcome, buckets(timers.get(tool)))));
     return out;
@@ -104,17 +107,12 @@ public final class CallMetrics {
   public void record(Outcome outcome) {
     try {
       Labels labels = new Labels(outcome.tool().orElse(null), outcome.isOk() ? null : outcome.error().get().code());
-      Counter calls = counters.get(labels);
-      if (calls == null) {
-        calls = counters.computeIfAbsent(labels, this::registerCounter);
+      Meters meters = byLabels.get(labels);
+      if (meters == null) {
+        meters = byLabels.computeIfAbsent(labels, this::register);
       }
-      calls.increment();
-      ToolLabels tool = toolLabels(labels);
-      Timer duration = timers.get(tool);
-      if (duration == null) {
-        duration = timers.computeIfAbsent(tool, this::registerTimer);
-      }
-      duration.record(outcome.elapsedNanos(), TimeUnit.NANOSECONDS);
+      meters.calls().increment();
+      meters.duration().record(outcome.elapsedNanos(), TimeUnit.NANOSECONDS);
       if (outcome.cached()) {
         cacheHits.increment();
       }
@@ -132,13 +130,14 @@ public final class CallMetrics {
     return labels.code() == null ? "ok" : labels.code().wireName();
   }
 
-  /** Meters are registered once per label set: registering on every call costs more than the call. */
-  private Counter registerCounter(Labels labels) {
+  /** Meters are looked up once per label set: registering on every call costs more than the call. */
+  private Meters register(Labels labels) {
     ToolLabels tool = toolLabels(labels);
-    return Counter.builder("reckoner.calls")
+    Counter calls = Counter.builder("reckoner.calls")
         .description("Tool calls by outcome: ok or the error code")
         .tags("tool", tool.tool(), "version", tool.version(), "outcome", outcome(labels))
         .register(registry);
+    return new Meters(calls, timers.computeIfAbsent(tool, this::registerTimer));
   }
 
   private Timer registerTimer(ToolLabels tool) {

@@ -139,7 +139,7 @@ final class StatusHistory {
   }
 
   private static void tools(ArrayNode out, List<Sample> points, Sample base, Sample now) {
-    TreeSet<String> keys = new TreeSet<>();
+    TreeSet<String> keys = new TreeSet<>(now.tools().keySet()); // a tool first called since the last sample too
     points.forEach(p -> keys.addAll(p.tools().keySet()));
     for (String key : keys) {
       CallMetrics.ToolStats total = now.tools().get(key);

@@ -155,6 +155,19 @@ final class StatusHistoryTest {
   }
 
   @Test
+  void report_toolFirstCalledJustAfterASample_isListed() {
+    history.sample();
+    call(30, true);
+    clock.millis += 200; // under a second since the sample: no partial interval is drawn
+    JsonNode body = report();
+    assertEquals(0, body.get("times").size());
+    JsonNode tool = body.get("tools").get(0);
+    assertEquals("arith", tool.get("tool").asString());
+    assertEquals(1, tool.get("calls").asLong());
+    assertEquals(0, tool.get("series").get("calls_per_second").size());
+  }
+
+  @Test
   void sample_keepsOnlyTheWindow() {
     for (int i = 0; i < 10; i++) {
       history.sample();
