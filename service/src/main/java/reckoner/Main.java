@@ -29,7 +29,9 @@ import reckoner.splice.OnError;
     subcommands = {Main.Serve.class, Main.Fill.class})
 public final class Main implements Runnable {
   public static void main(String[] args) {
-    System.exit(new CommandLine(new Main()).execute(args));
+    int code = new CommandLine(new Main()).execute(args);
+    Logs.flush(); // log lines are written by a queue's thread: write what it holds before exiting
+    System.exit(code);
   }
 
   @Override
@@ -148,6 +150,7 @@ public final class Main implements Runnable {
       CountDownLatch stopped = new CountDownLatch(1);
       Runtime.getRuntime().addShutdownHook(new Thread(() -> {
         service.close();
+        Logs.flush(); // the drain's account is the last thing queued
         stopped.countDown();
       }, "reckoner-shutdown"));
       stopped.await();
