@@ -9,19 +9,30 @@ COPY service service
 COPY tool-specs tool-specs
 RUN mvn -B -q -DskipTests package
 
-# Run stage: a JRE, the jar, and an unprivileged user.
+# Run stage: a JRE, the jar, and an unprivileged user (uid 10001, as ops/deploy/reckoner.yaml runs it).
 FROM eclipse-temurin:17-jre
 RUN apt-get update -qq && apt-get install -y -qq --no-install-recommends curl && rm -rf /var/lib/apt/lists/* \
- && useradd --system --uid 10001 --home-dir /var/lib/reckoner --create-home reckoner
+ && groupadd --system --gid 10001 reckoner \
+ && useradd --system --uid 10001 --gid reckoner --home-dir /var/lib/reckoner --create-home reckoner \
+ && mkdir -p /var/lib/reckoner/data /etc/reckoner/keys \
+ && chown -R reckoner:reckoner /var/lib/reckoner
 COPY --from=build /src/service/target/reckoner.jar /opt/reckoner/reckoner.jar
 USER reckoner
 WORKDIR /var/lib/reckoner
+# The data dir exists and belongs to the service's user before it becomes a volume, so a new
+# volume starts out writable by it.
 VOLUME ["/var/lib/reckoner/data"]
 EXPOSE 8080
-ENV JAVA_TOOL_OPTIONS="-XX:MaxRAMPercentage=75 -XX:+ExitOnOutOfMemoryError"
-# Until API keys are configured the service serves loopback only; inside a container the port is
-# published, so the open-access opt-in is explicit here. Put it behind an authenticating proxy.
+# Settings as RECKONER_* variables (README: Settings). The API keys file is mounted at
+# /etc/reckoner/keys/keys.jsonl (a Kubernetes Secret, or docker run -v ...:/etc/reckoner/keys:ro).
+ENV JAVA_TOOL_OPTIONS="-XX:MaxRAMPercentage=75 -XX:+ExitOnOutOfMemoryError" \
+    RECKONER_HOST=0.0.0.0 \
+    RECKONER_PORT=8080 \
+    RECKONER_DATA_DIR=/var/lib/reckoner/data \
+    RECKONER_KEYS_FILE=/etc/reckoner/keys/keys.jsonl
 HEALTHCHECK --interval=10s --timeout=3s --start-period=20s --retries=3 \
   CMD curl -fsS http://127.0.0.1:8080/health/ready || exit 1
+# SIGTERM (docker stop): finish requests in flight and drain the ledger; give it time (docker stop -t 60).
+STOPSIGNAL SIGTERM
 ENTRYPOINT ["java", "-jar", "/opt/reckoner/reckoner.jar"]
-CMD ["serve", "--host", "0.0.0.0", "--port", "8080", "--data-dir", "/var/lib/reckoner/data", "--open-access"]
+CMD ["serve"]

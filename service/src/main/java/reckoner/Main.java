@@ -28,7 +28,9 @@ import reckoner.splice.OnError;
     subcommands = {Main.Serve.class, Main.Fill.class, Main.Key.class})
 public final class Main implements Runnable {
   public static void main(String[] args) {
-    System.exit(commandLine().execute(args));
+    int code = commandLine().execute(args);
+    Logs.flush(); // log lines are written by a queue's thread: write what it holds before exiting
+    System.exit(code);
   }
 
   /** The command line with a flag for every setting (see {@link SettingFlags}). */
@@ -64,6 +66,7 @@ public final class Main implements Runnable {
       CountDownLatch stopped = new CountDownLatch(1);
       Runtime.getRuntime().addShutdownHook(new Thread(() -> {
         service.close();
+        Logs.flush(); // the drain's account is the last thing queued
         stopped.countDown();
       }, "reckoner-shutdown"));
       stopped.await();

@@ -1,19 +1,9 @@
 package reckoner;
 
 import io.javalin.Javalin;
-import io.micrometer.core.instrument.binder.jvm.JvmGcMetrics;
-import io.micrometer.core.instrument.binder.jvm.JvmMemoryMetrics;
-import io.micrometer.core.instrument.binder.jvm.JvmThreadMetrics;
-import io.micrometer.core.instrument.binder.system.ProcessorMetrics;
-import io.micrometer.core.instrument.binder.system.UptimeMetrics;
-import io.micrometer.prometheusmetrics.PrometheusConfig;
 import io.micrometer.prometheusmetrics.PrometheusMeterRegistry;
-import io.micrometer.core.instrument.DistributionSummary;
-import io.micrometer.core.instrument.FunctionCounter;
-import io.micrometer.core.instrument.Gauge;
-import io.micrometer.core.instrument.Timer;
-import io.micrometer.core.instrument.binder.cache.CaffeineCacheMetrics;
 import java.time.Clock;
+import java.time.Instant;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import org.slf4j.Logger;
@@ -27,6 +17,7 @@ import reckoner.config.ServiceConfig;
 import reckoner.data.DataWatcher;
 import reckoner.ledger.LedgerWriter;
 import reckoner.http.HttpApi;
+import reckoner.http.Monitoring;
 import reckoner.spec.Json;
 import reckoner.spec.OpenApi;
 import reckoner.spec.ToolCatalog;
@@ -48,9 +39,10 @@ public final class Service implements AutoCloseable {
   private final Engine engine;
   private final KeyStore keys; // null: no keys file
   private final java.util.List<HttpApi.RouteInfo> routes;
+  private final Monitoring monitoring;
 
   private Service(Javalin http, ExecutorService calls, DataWatcher watcher, DataWatcher searchWatcher, Engine engine,
-      KeyStore keys, java.util.List<HttpApi.RouteInfo> routes) {
+      KeyStore keys, java.util.List<HttpApi.RouteInfo> routes, Monitoring monitoring) {
     this.http = http;
     this.calls = calls;
     this.watcher = watcher;
@@ -58,6 +50,7 @@ public final class Service implements AutoCloseable {
     this.engine = engine;
     this.keys = keys;
     this.routes = routes;
+    this.monitoring = monitoring;
   }
 
   /** The keys file's keys, watched for changes; null when there is no keys file. A bad file stops the start. */
@@ -81,44 +74,13 @@ public final class Service implements AutoCloseable {
     requirePortFree(config.host(), config.port()); // before the ledger opens: a second start changes nothing
     JsonMapper json = Json.newMapper();
     KeyStore keys = openKeys(config.access(), json); // likewise: a bad keys file stops the start before anything opens
-    PrometheusMeterRegistry metrics = new PrometheusMeterRegistry(PrometheusConfig.DEFAULT);
-    Timer commitTime = Timer.builder("reckoner.ledger.commit").description("Time to commit one group of invocations")
-        .publishPercentileHistogram().register(metrics);
-    DistributionSummary commitSize = DistributionSummary.builder("reckoner.ledger.commit.records")
-        .description("Invocations per group commit").publishPercentileHistogram().register(metrics);
-    Engine engine = Engine.build(config, clock, json, (records, nanos) -> {
-      commitTime.record(nanos, java.util.concurrent.TimeUnit.NANOSECONDS);
-      commitSize.record(records);
-    });
+    Instant started = clock.instant();
+    PrometheusMeterRegistry metrics = ServiceMetrics.registry();
+    Engine engine = Engine.build(config, clock, json, ServiceMetrics.commits(metrics));
     ToolCatalog catalog = engine.catalog();
     ExecutorService calls = Executors.newFixedThreadPool(Engine.callThreads(config), daemonThreads("reckoner-call-"));
 
-    new JvmMemoryMetrics().bindTo(metrics);
-    new JvmGcMetrics().bindTo(metrics);
-    new JvmThreadMetrics().bindTo(metrics);
-    new ProcessorMetrics().bindTo(metrics);
-    new UptimeMetrics().bindTo(metrics);
-    CaffeineCacheMetrics.monitor(metrics, engine.cache().caffeine(), "answers");
-    FunctionCounter.builder("reckoner.facts.reloads", engine.facts(), f -> f.reloadSuccesses())
-        .description("Fact reloads applied").tag("result", "applied").register(metrics);
-    FunctionCounter.builder("reckoner.facts.reloads", engine.facts(), f -> f.reloadFailures())
-        .description("Fact reloads refused (a bad file; the old data kept serving)").tag("result", "refused").register(metrics);
-    FunctionCounter.builder("reckoner.search.reloads", engine.search(), s -> s.reloadSuccesses())
-        .description("Search collection reloads applied").tag("result", "applied").register(metrics);
-    FunctionCounter.builder("reckoner.search.reloads", engine.search(), s -> s.reloadFailures())
-        .description("Search collection reloads refused (a bad file; the old collections kept serving)").tag("result", "refused")
-        .register(metrics);
-    LedgerWriter w = engine.writer();
-    Gauge.builder("reckoner.ledger.queue.depth", w, LedgerWriter::queueDepth).description("Invocations waiting to be committed")
-        .register(metrics);
-    Gauge.builder("reckoner.ledger.healthy", w, x -> x.isHealthy() ? 1 : 0).description("1 while the ledger takes writes")
-        .register(metrics);
-    FunctionCounter.builder("reckoner.ledger.records.written", w, LedgerWriter::recordsWritten)
-        .description("Invocations committed").register(metrics);
-    FunctionCounter.builder("reckoner.ledger.write.failures", w, LedgerWriter::writeFailures)
-        .description("Ledger write attempts that failed").register(metrics);
-    FunctionCounter.builder("reckoner.ledger.records.refused", w, LedgerWriter::recordsRefused)
-        .description("Invocations refused (queue full, store down, closed); their calls were answered 503").register(metrics);
+    ServiceMetrics.bind(metrics, engine, VERSION);
     DataWatcher watcher = config.factsPollMillis() > 0
         ? DataWatcher.over(engine.facts().data(), java.time.Duration.ofMillis(config.factsPollMillis())).start()
         : null;
@@ -130,7 +92,9 @@ public final class Service implements AutoCloseable {
         OpenApi.assemble(catalog, json, VERSION), engine::isReady, calls, engine.facts(), engine.ledger(), engine.search(), keys,
         new RateLimits(config.access().rateBurstSeconds()), new StreamLimits(config.access().maxStreamsPerKey()),
         config.bounds());
-    HttpApi.Built built = HttpApi.create(engine.invoker(), metrics, json, settings);
+    Monitoring monitoring = new Monitoring(metrics, engine.writer(), config.cacheSize() > 0 ? engine.cache().caffeine() : null,
+        new Monitoring.About(VERSION, instanceName(config), config.ledger(), started), config.accessLog(), clock);
+    HttpApi.Built built = HttpApi.create(engine.invoker(), monitoring, json, settings);
     Javalin http = built.app();
     try {
       http.start(config.host(), config.port());
@@ -155,7 +119,16 @@ public final class Service implements AutoCloseable {
     } else {
       LOG.info("no API keys configured: listening on loopback only");
     }
-    return new Service(http, calls, watcher, searchWatcher, engine, keys, built.routes());
+    return new Service(http, calls, watcher, searchWatcher, engine, keys, built.routes(), monitoring);
+  }
+
+  /** The host name, as the status page names this process (a pod's name on Kubernetes). */
+  private static String instanceName(ServiceConfig config) {
+    try {
+      return java.net.InetAddress.getLocalHost().getHostName();
+    } catch (java.net.UnknownHostException e) {
+      return config.host();
+    }
   }
 
   /** Fails with one line naming the address when it cannot be bound (in use, not an address of this host). */
@@ -196,8 +169,16 @@ public final class Service implements AutoCloseable {
     return http.port();
   }
 
+  /** Stops taking requests, lets those in flight finish, drains the ledger queue, and logs what it drained. */
   @Override
   public void close() {
+    LedgerWriter writer = engine.writer();
+    int inFlight = monitoring.requestsInFlight();
+    int queuedAtStart = writer.queueDepth();
+    LOG.atInfo().addKeyValue("http_in_flight", inFlight).addKeyValue("ledger_queued", queuedAtStart)
+        .log("stopping: draining {} HTTP requests in flight and {} ledger records queued", inFlight, queuedAtStart);
+    long start = System.nanoTime();
+    long writtenBefore = writer.recordsWritten();
     if (watcher != null) {
       watcher.close();
     }
@@ -209,6 +190,14 @@ public final class Service implements AutoCloseable {
     }
     http.stop(); // no new calls; calls in flight finish
     calls.shutdown();
+    int queued = writer.queueDepth();
     engine.close(); // drains the ledger queue before returning
+    long written = writer.recordsWritten() - writtenBefore;
+    long millis = (System.nanoTime() - start) / 1_000_000;
+    LOG.atInfo().addKeyValue("ledger_written_in_drain", written).addKeyValue("ledger_queued_after_http", queued)
+        .addKeyValue("ledger_not_written", writer.recordsLost()).addKeyValue("drain_ms", millis)
+        .log("stopped in {} ms: {} ledger records written while draining ({} were queued when HTTP stopped), {} not written",
+            millis, written, queued, writer.recordsLost());
   }
+
 }

@@ -53,6 +53,7 @@ import java.util.TreeSet;
  * @param searchPollMillis how often collection files are checked for changes (0: only on an admin reload)
  * @param searchIndexDir where on-disk indexes live (empty: {@code <data dir>/search-index})
  * @param searchMemoryChars collections of at most this many characters are indexed in memory, larger ones on disk
+ * @param accessLog whether every HTTP request is logged as one line (logger {@code reckoner.access})
  * @param access API keys and their limits
  * @param bounds the bounds on each request's work
  */
@@ -62,7 +63,7 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
     String ledger, String ledgerUrl, String ledgerUser, String ledgerPassword, int ledgerPoolSize, boolean ledgerSync,
     String durability, int ledgerQueue, long retentionDays, long retentionMaxRecords,
     long retentionMaxBytes, List<Path> searchDirs, boolean searchDemo, String searchDefaultCollection,
-    long searchPollMillis, String searchIndexDir, long searchMemoryChars, Access access, Bounds bounds) {
+    long searchPollMillis, String searchIndexDir, long searchMemoryChars, boolean accessLog, Access access, Bounds bounds) {
 
   /**
    * API keys: the keys file (null: none, and the server listens on loopback only), how often it is
@@ -202,6 +203,7 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
       new Setting("search-index-dir", "", false, "Where on-disk indexes live (none: <data dir>/search-index)."),
       new Setting("search-memory-chars", "16000000", false,
           "Collections of at most this many characters are indexed in memory; larger ones on disk, memory-mapped."),
+      new Setting("access-log", "true", true, "Log every HTTP request as one JSON line (logger reckoner.access)."),
       new Setting("keys-file", "", true, "The API keys (JSON Lines; see Access). None: no keys, and loopback only."),
       new Setting("keys-poll-ms", "2000", true, "How often the keys file is checked for changes; 0: read at start only."),
       new Setting("rate-burst-seconds", "1", true, "How many seconds of its rate_per_s a key may spend at once."),
@@ -268,6 +270,7 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
         longValue(s, "search-poll-ms"),
         s.get("search-index-dir").trim(),
         longValue(s, "search-memory-chars"),
+        bool(s, "access-log"),
         new Access(s.get("keys-file").isBlank() ? null : Path.of(s.get("keys-file").trim()), longValue(s, "keys-poll-ms"),
             decimal(s, "rate-burst-seconds"), integer(s, "max-streams-per-key")),
         new Bounds(integer(s, "max-batch-calls"), integer(s, "max-argument-chars"), longValue(s, "call-deadline-ms"),

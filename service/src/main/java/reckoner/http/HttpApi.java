@@ -3,7 +3,6 @@ package reckoner.http;
 import io.javalin.Javalin;
 import io.javalin.http.Context;
 import io.javalin.http.HttpResponseException;
-import io.micrometer.prometheusmetrics.PrometheusMeterRegistry;
 import io.javalin.http.Handler;
 import java.util.Arrays;
 import java.util.List;
@@ -50,11 +49,11 @@ public final class HttpApi {
 
   private HttpApi() {}
 
-  public static Built create(Invoker invoker, PrometheusMeterRegistry metrics, JsonMapper json, Settings settings) {
+  public static Built create(Invoker invoker, Monitoring monitoring, JsonMapper json, Settings settings) {
     Responses responses = new Responses(json);
     Access access = new Access(settings.keys(), settings.rates(), settings.streams());
     Bodies bodies = new Bodies(settings.maxBodyBytes());
-    CallMetrics callMetrics = new CallMetrics(metrics);
+    CallMetrics callMetrics = monitoring.calls();
     ToolRoutes tools = new ToolRoutes(invoker, responses, callMetrics, bodies, access);
     BatchRoutes batch = new BatchRoutes(invoker, responses, callMetrics, new Bodies(settings.maxBatchBytes()),
         settings.callExecutor(), access, settings.bounds().maxBatchCalls());
@@ -62,7 +61,8 @@ public final class HttpApi {
     KeysRoutes keys = new KeysRoutes(settings.keys(), responses);
     LedgerRoutes ledger = new LedgerRoutes(settings.ledger(), responses);
     SearchRoutes search = new SearchRoutes(settings.search(), responses);
-    StatusPage status = new StatusPage(callMetrics, responses, java.time.Clock.systemUTC());
+    // The monitoring routes' handlers exist once the tracker is installed in the configuration below.
+    java.util.concurrent.atomic.AtomicReference<Monitoring.Handlers> watch = new java.util.concurrent.atomic.AtomicReference<>();
     SpliceRoutes splice = new SpliceRoutes(new Filler(invoker), responses, callMetrics, new Bodies(settings.maxBatchBytes()),
         settings.markup(), access);
     java.util.concurrent.atomic.AtomicReference<byte[]> openApi = new java.util.concurrent.atomic.AtomicReference<>();
@@ -83,18 +83,18 @@ public final class HttpApi {
         new Route("POST", "/v1/admin/keys/reload", Need.ADMIN, keys::reload),
         new Route("GET", "/v1/admin/search", Need.ADMIN, search::show),
         new Route("POST", "/v1/admin/search/reload", Need.ADMIN, search::reload),
-        new Route("GET", "/status", Need.ADMIN, status::show),
+        new Route("GET", "/status", Need.ADMIN, ctx -> watch.get().status().handle(ctx)),
+        new Route("GET", "/status.json", Need.ADMIN, ctx -> watch.get().statusJson().handle(ctx)),
         new Route("GET", "/openapi.json", Need.OPEN, ctx -> ctx.contentType(MediaTypes.JSON).result(openApi.get())),
         new Route("GET", "/health/live", Need.OPEN, ctx -> responses.json(ctx, 200, responses.object().put("status", "up"))),
         new Route("GET", "/health/ready", Need.OPEN, ctx -> ready(ctx, responses, settings.ready())),
-        new Route("GET", "/metrics", Need.OPEN,
-            ctx -> ctx.contentType("text/plain; version=0.0.4; charset=utf-8").result(metrics.scrape())),
+        new Route("GET", "/metrics", Need.OPEN, ctx -> watch.get().metrics().handle(ctx)),
         new Route("GET", "/problems/{code}", Need.OPEN, ctx -> problemType(ctx, responses)));
 
     java.util.concurrent.atomic.AtomicReference<Javalin> started = new java.util.concurrent.atomic.AtomicReference<>();
     Javalin app = Javalin.create(config -> {
       config.startup.showJavalinBanner = false;
-      config.events.serverStopped(status::stop);
+      watch.set(monitoring.install(config, responses)); // request ids, HTTP metrics, access log, status history
       config.http.maxRequestSize = Math.max(settings.maxBodyBytes(), settings.maxBatchBytes());
       config.http.prefer405over404 = true;
       config.router.ignoreTrailingSlashes = true;
