@@ -106,6 +106,9 @@ public final class OpenApi {
     paths.putObject("/v1/admin/keys/reload").set("post", keysReload);
     paths.putObject("/status").set("get", plain(json, "status", "A live page for ops: rates, errors, latency per tool",
         "text/html", null));
+    paths.putObject("/status.json").set("get", plain(json, "statusHistory",
+        "What the status page draws: per tool, 15 minutes of rates, errors and latency percentiles; ledger and cache health; "
+            + "version and uptime", "application/json", null));
     paths.putObject("/openapi.json").set("get", plain(json, "openApi", "This document", "application/json", null));
     paths.putObject("/health/live").set("get", plain(json, "live", "Liveness: the process answers", "application/json", null));
     ObjectNode ready = plain(json, "ready", "Readiness: tools loaded and the ledger writable", "application/json", null);
