@@ -39,9 +39,18 @@ import reckoner.tool.ToolId;
  * @param elapsedUs the time the call took, in microseconds
  * @param dataVersion the data version the answer came from (fact sets), or null
  * @param asOf the reference time the call used, as given or as read from the clock, or null
+ * @param idempotencyKey what names the call for retries (see {@link reckoner.call.CallRequest}): the
+ *     caller's {@code Idempotency-Key}, followed for a call in a batch or a fill by {@link #CALL_SEPARATOR}
+ *     and the call's id; null for a call sent without one
+ * @param requestHash a digest of the request that carried the call, so a retry with other content
+ *     under the same key is told apart; null without an idempotency key
  */
 public record Invocation(String id, String keyId, String run, String ref, String tool, Integer version,
-    String args, String text, String outcome, boolean cached, long elapsedUs, String dataVersion, String asOf) {
+    String args, String text, String outcome, boolean cached, long elapsedUs, String dataVersion, String asOf,
+    String idempotencyKey, String requestHash) {
+
+  /** Separates a batch's or a fill's key from the call's id within it; never in a key (printable ASCII). */
+  public static final char CALL_SEPARATOR = '\u001f';
 
   /** The outcome of a call that was answered. */
   public static final String OK = "ok";
@@ -76,6 +85,16 @@ public record Invocation(String id, String keyId, String run, String ref, String
     }
     dataVersion = clean(dataVersion);
     asOf = clean(asOf);
+    if ((idempotencyKey == null) != (requestHash == null)) {
+      throw new IllegalArgumentException("an idempotency key and a request hash come together");
+    }
+    idempotencyKey = clean(idempotencyKey);
+  }
+
+  /** A record of a call sent without an idempotency key. */
+  public Invocation(String id, String keyId, String run, String ref, String tool, Integer version, String args, String text,
+      String outcome, boolean cached, long elapsedUs, String dataVersion, String asOf) {
+    this(id, keyId, run, ref, tool, version, args, text, outcome, cached, elapsedUs, dataVersion, asOf, null, null);
   }
 
   /**
@@ -97,7 +116,34 @@ public record Invocation(String id, String keyId, String run, String ref, String
     return new Invocation(outcome.invocationId(), keyId, request.run(), request.ref(), tool,
         version != null && version >= 1 ? version : null, args, outcome.text(),
         outcome.error().map(e -> e.code().wireName()).orElse(OK), cached, outcome.elapsedNanos() / 1000,
-        outcome.answer().flatMap(Answer::dataVersion).orElse(null), asOf);
+        outcome.answer().flatMap(Answer::dataVersion).orElse(null), asOf, request.idempotencyKey(), request.requestHash());
+  }
+
+  /**
+   * The outcome this record holds, as a replay gives it back: the answer with its data version and,
+   * when the call read the clock, the time it read; or the error, its suggestions read back from
+   * the text. The canonical arguments are not rebuilt (the record keeps them as JSON).
+   */
+  public Outcome toOutcome() {
+    java.util.Optional<ToolId> toolId = version == null || !ToolId.isValidName(tool) ? java.util.Optional.empty()
+        : java.util.Optional.of(ToolId.of(tool, version));
+    if (isOk()) {
+      boolean clockRead = asOf != null && (args == null || !args.contains("\"" + Invoker.AS_OF + "\":"));
+      Answer answer = new Answer(text, !clockRead,
+          clockRead ? java.util.Optional.of(Instant.parse(asOf)) : java.util.Optional.empty(), java.util.Optional.ofNullable(dataVersion));
+      return new Outcome(id, toolId, java.util.Optional.empty(), java.util.Optional.of(answer), java.util.Optional.empty(), cached,
+          elapsedUs * 1000);
+    }
+    reckoner.tool.ErrorCode code = reckoner.tool.ErrorCode.fromWireName(outcome).orElse(reckoner.tool.ErrorCode.INTERNAL_ERROR);
+    String detail = text.startsWith("error: " + outcome + ": ") ? text.substring(("error: " + outcome + ": ").length()) : text;
+    java.util.List<String> suggestions = java.util.List.of();
+    int hint = detail.lastIndexOf(" (did you mean: ");
+    if (hint >= 0 && detail.endsWith("?)")) {
+      suggestions = java.util.List.of(detail.substring(hint + 16, detail.length() - 2).split(", "));
+      detail = detail.substring(0, hint);
+    }
+    return new Outcome(id, toolId, java.util.Optional.empty(), java.util.Optional.empty(),
+        java.util.Optional.of(new reckoner.tool.ToolError(code, detail, suggestions)), cached, elapsedUs * 1000);
   }
 
   /** A builder for records made by hand (tests, tools, imports). */
@@ -123,7 +169,7 @@ public record Invocation(String id, String keyId, String run, String ref, String
   /**
    * This record as one line of JSON, the form of the ledger's query answers and export lines:
    * {@code {"id","ts","key_id","run","ref","tool","version","args","text","outcome","cached",
-   * "elapsed_us","data_version","as_of"}} in that order, absent values as {@code null}, {@code args}
+   * "elapsed_us","data_version","as_of","idempotency_key"}} in that order, absent values as {@code null}, {@code args}
    * as a JSON object and {@code ts} as ISO 8601 UTC with milliseconds.
    */
   public String toJson() {
@@ -142,6 +188,7 @@ public record Invocation(String id, String keyId, String run, String ref, String
     sb.append(",\"elapsed_us\":").append(elapsedUs);
     JsonText.quote(sb.append(",\"data_version\":"), dataVersion);
     JsonText.quote(sb.append(",\"as_of\":"), asOf);
+    JsonText.quote(sb.append(",\"idempotency_key\":"), idempotencyKey);
     return sb.append('}').toString();
   }
 
@@ -202,6 +249,8 @@ public record Invocation(String id, String keyId, String run, String ref, String
     private long elapsedUs;
     private String dataVersion;
     private String asOf;
+    private String idempotencyKey;
+    private String requestHash;
 
     private Builder(String id) {
       this.id = id;
@@ -219,9 +268,11 @@ public record Invocation(String id, String keyId, String run, String ref, String
     public Builder elapsedUs(long elapsedUs) { this.elapsedUs = elapsedUs; return this; }
     public Builder dataVersion(String dataVersion) { this.dataVersion = dataVersion; return this; }
     public Builder asOf(String asOf) { this.asOf = asOf; return this; }
+    public Builder idempotency(String key, String requestHash) { this.idempotencyKey = key; this.requestHash = requestHash; return this; }
 
     public Invocation build() {
-      return new Invocation(id, keyId, run, ref, tool, version, args, text, outcome, cached, elapsedUs, dataVersion, asOf);
+      return new Invocation(id, keyId, run, ref, tool, version, args, text, outcome, cached, elapsedUs, dataVersion, asOf,
+          idempotencyKey, requestHash);
     }
   }
 }

@@ -22,8 +22,8 @@ import javax.sql.DataSource;
  */
 abstract class JdbcLedgerStore implements LedgerStore {
   /** The columns after the id's and the names', in the order inserts bind and selects read them. */
-  static final String FIELDS = "ref, version, args, text, outcome, cached, elapsed_us, data_version, as_of";
-  private static final int FIELD_COUNT = 9;
+  static final String FIELDS = "ref, version, args, text, outcome, cached, elapsed_us, data_version, as_of, idem, request_hash";
+  private static final int FIELD_COUNT = 11;
   private static final int NAME_COUNT = 3;
   /** Rows fetched per round trip when streaming. */
   static final int FETCH_SIZE = 500;
@@ -190,16 +190,16 @@ abstract class JdbcLedgerStore implements LedgerStore {
   // ---- writes ----
 
   @Override
-  public final void append(List<Invocation> invocations) {
+  public final java.util.Set<String> append(List<Invocation> invocations) {
     if (invocations.isEmpty()) {
-      return;
+      return java.util.Set.of();
     }
     int per = rowsPerStatement();
     int whole = invocations.size() / per;
     int rest = invocations.size() % per;
     int width = insertIdCount() + NAME_COUNT + FIELD_COUNT;
     try {
-      inWriteTransaction(c -> {
+      return inWriteTransaction(c -> {
         prepareNames(c, invocations);
         long inserted = 0;
         if (whole > 0) {
@@ -226,9 +226,9 @@ abstract class JdbcLedgerStore implements LedgerStore {
           }
         }
         if (inserted < invocations.size()) {
-          checkReplayed(c, invocations);
+          return checkReplayed(c, invocations);
         }
-        return null;
+        return java.util.Set.<String>of();
       });
     } catch (SQLException e) {
       throw failed("could not write " + invocations.size() + " invocations", e);
@@ -237,10 +237,12 @@ abstract class JdbcLedgerStore implements LedgerStore {
 
   /**
    * Rows one INSERT skipped must be records written before (a batch replayed after a failure whose
-   * commit in fact went through): each id must be there exactly. Any other clash is a defect, and
-   * the batch fails loudly rather than lose a record.
+   * commit in fact went through), or calls another record already holds the idempotency key of (a
+   * retry that raced its first attempt, on another replica): the latter are returned, to be told to
+   * their callers. Any other clash is a defect, and the batch fails loudly rather than lose a record.
    */
-  private void checkReplayed(Connection c, List<Invocation> invocations) throws SQLException {
+  private java.util.Set<String> checkReplayed(Connection c, List<Invocation> invocations) throws SQLException {
+    java.util.Set<String> superseded = new java.util.HashSet<>();
     List<String> terms = new ArrayList<>();
     List<Object> params = new ArrayList<>();
     idTerm(IdOp.EQUAL, new UUID(0, 0), terms, params);
@@ -251,14 +253,83 @@ abstract class JdbcLedgerStore implements LedgerStore {
         idTerm(IdOp.EQUAL, IdBounds.parse(inv.id()), terms, params);
         bindAll(ps, params);
         try (ResultSet rs = ps.executeQuery()) {
-          if (!rs.next()) {
-            throw new IllegalStateException(name() + ": the record " + inv.id() + " clashes with another record's key;"
-                + " ids must come from one generator per ledger file");
+          if (rs.next()) {
+            continue;
           }
         }
+        if (inv.idempotencyKey() != null && holdsIdempotencyKey(c, inv)) {
+          superseded.add(inv.id());
+          continue;
+        }
+        throw new IllegalStateException(name() + ": the record " + inv.id() + " clashes with another record's key;"
+            + " ids must come from one generator per ledger file");
+      }
+    }
+    return superseded;
+  }
+
+  /** Whether another record of {@code inv}'s key already holds its idempotency key. */
+  private boolean holdsIdempotencyKey(Connection c, Invocation inv) throws SQLException {
+    try (PreparedStatement ps = c.prepareStatement("SELECT 1 FROM invocations WHERE " + nameTerm(Name.KEY) + " AND idem = ?")) {
+      ps.setString(1, inv.keyId());
+      ps.setString(2, inv.idempotencyKey());
+      try (ResultSet rs = ps.executeQuery()) {
+        return rs.next();
       }
     }
   }
+
+  @Override
+  public final java.util.Map<String, Invocation> findByIdempotencyKeys(String keyId, java.util.Collection<String> keys) {
+    java.util.Map<String, Invocation> found = new java.util.HashMap<>();
+    List<String> all = new ArrayList<>(keys);
+    try (Connection c = readPool().getConnection()) {
+      for (int from = 0; from < all.size(); from += LOOKUP_CHUNK) {
+        List<String> chunk = all.subList(from, Math.min(all.size(), from + LOOKUP_CHUNK));
+        String sql = "SELECT " + selectIdColumns() + ", " + selectNameColumns() + ", " + FIELDS + " FROM invocations WHERE "
+            + nameTerm(Name.KEY) + " AND idem IN (" + "?, ".repeat(chunk.size() - 1) + "?)";
+        try (PreparedStatement ps = c.prepareStatement(sql)) {
+          ps.setString(1, keyId);
+          for (int i = 0; i < chunk.size(); i++) {
+            ps.setString(i + 2, chunk.get(i));
+          }
+          try (ResultSet rs = ps.executeQuery()) {
+            while (rs.next()) {
+              Invocation inv = row(rs);
+              found.put(inv.idempotencyKey(), inv);
+            }
+          }
+        }
+      }
+    } catch (SQLException e) {
+      throw failed("could not look up idempotency keys", e);
+    }
+    return found;
+  }
+
+  @Override
+  public final List<Invocation> findByIdempotencyPrefix(String keyId, String prefix, int limit) {
+    List<Invocation> found = new ArrayList<>();
+    String sql = "SELECT " + selectIdColumns() + ", " + selectNameColumns() + ", " + FIELDS + " FROM invocations WHERE "
+        + nameTerm(Name.KEY) + " AND idem >= ? AND idem < ? ORDER BY idem LIMIT ?";
+    try (Connection c = readPool().getConnection(); PreparedStatement ps = c.prepareStatement(sql)) {
+      ps.setString(1, keyId);
+      ps.setString(2, prefix);
+      ps.setString(3, prefix + '\uffff');
+      ps.setInt(4, limit);
+      try (ResultSet rs = ps.executeQuery()) {
+        while (rs.next()) {
+          found.add(row(rs));
+        }
+      }
+    } catch (SQLException e) {
+      throw failed("could not look up idempotency keys", e);
+    }
+    return found;
+  }
+
+  /** Keys one lookup statement asks for at most. */
+  private static final int LOOKUP_CHUNK = 500;
 
   /** Binds {@code params} from index 1 on. */
   final void bindAll(PreparedStatement ps, List<Object> params) throws SQLException {
@@ -311,6 +382,8 @@ abstract class JdbcLedgerStore implements LedgerStore {
     ps.setLong(at + 10, inv.elapsedUs());
     ps.setString(at + 11, inv.dataVersion());
     ps.setString(at + 12, inv.asOf());
+    ps.setString(at + 13, inv.idempotencyKey());
+    ps.setString(at + 14, inv.requestHash());
   }
 
   @Override
@@ -466,7 +539,7 @@ abstract class JdbcLedgerStore implements LedgerStore {
     Integer v = rs.wasNull() ? null : version;
     return new Invocation(readId(rs, 1).toString(), rs.getString(at + 1), rs.getString(at + 2), rs.getString(at + 4),
         rs.getString(at + 3), v, rs.getString(at + 6), rs.getString(at + 7), rs.getString(at + 8), rs.getBoolean(at + 9),
-        rs.getLong(at + 10), rs.getString(at + 11), rs.getString(at + 12));
+        rs.getLong(at + 10), rs.getString(at + 11), rs.getString(at + 12), rs.getString(at + 13), rs.getString(at + 14));
   }
 
   final LedgerUnavailableException failed(String what, SQLException e) {

@@ -43,9 +43,19 @@ public interface LedgerStore extends AutoCloseable {
 
   /**
    * Writes {@code invocations} in one transaction: all or none. A record whose id is already
-   * stored is left as it is, so a retried batch never writes a record twice.
+   * stored is left as it is, so a retried batch never writes a record twice. A record whose key and
+   * idempotency key another record already holds (a retry that raced its first attempt on another
+   * replica) is not written either: its id is returned, so its caller can be given the other.
+   *
+   * @return the ids of the records not written because another record holds their idempotency key
    */
-  void append(List<Invocation> invocations);
+  java.util.Set<String> append(List<Invocation> invocations);
+
+  /** The records of {@code keyId} that hold any of {@code idempotencyKeys}, by idempotency key. */
+  java.util.Map<String, Invocation> findByIdempotencyKeys(String keyId, java.util.Collection<String> idempotencyKeys);
+
+  /** At most {@code limit} records of {@code keyId} whose idempotency key starts with {@code prefix}, in key order. */
+  List<Invocation> findByIdempotencyPrefix(String keyId, String prefix, int limit);
 
   /** One page of {@code query}'s matches, oldest first; at most {@link InvocationQuery#pageSize()}. */
   InvocationPage query(InvocationQuery query);

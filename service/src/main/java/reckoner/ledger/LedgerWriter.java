@@ -362,20 +362,27 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
   private boolean write(List<Entry> batch) {
     List<Invocation> records = batch.stream().map(Entry::invocation).collect(Collectors.toList());
     long start = System.nanoTime();
+    java.util.Set<String> superseded;
     try {
-      store.append(records);
+      superseded = store.append(records);
     } catch (RuntimeException | Error e) { // a driver may throw an Error when its connection drops; the writer lives on
       failed(e);
       return false;
     }
     long nanos = System.nanoTime() - start;
-    written.addAndGet(batch.size());
+    written.addAndGet(batch.size() - superseded.size());
     commits.incrementAndGet();
     commitNanos.addAndGet(nanos);
     recovered();
     room.release(batch.size());
     for (Entry e : batch) {
-      if (e.done() != null) {
+      if (superseded.contains(e.invocation().id())) {
+        LOG.info("the record {} was not written: another record holds its idempotency key (a retry raced its first attempt)",
+            e.invocation().id());
+        if (e.done() != null) {
+          e.done().completeExceptionally(new SupersededException(e.invocation().keyId(), e.invocation().idempotencyKey()));
+        }
+      } else if (e.done() != null) {
         e.done().complete(null);
       }
     }

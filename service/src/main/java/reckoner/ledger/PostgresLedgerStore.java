@@ -198,7 +198,9 @@ final class PostgresLedgerStore extends JdbcLedgerStore {
 
   @Override
   String onConflict() {
-    return " ON CONFLICT (id) DO NOTHING";
+    // Any unique key: the id (a replayed batch) or the idempotency key (a retry that raced its first
+    // attempt on another replica); append tells the two apart.
+    return " ON CONFLICT DO NOTHING";
   }
 
   /** Names are kept as text here: replicas share the table, and a shared dictionary would be one more contended write. */
@@ -252,7 +254,13 @@ final class PostgresLedgerStore extends JdbcLedgerStore {
         "CREATE INDEX invocations_by_error ON invocations (outcome, id) WHERE outcome <> 'ok'",
         "CREATE INDEX invocations_errors ON invocations (id) WHERE outcome <> 'ok'",
         "CREATE INDEX invocations_by_ref ON invocations (ref, id) WHERE ref IS NOT NULL",
-        "CREATE TABLE ledger_probe (n integer PRIMARY KEY, pad bytea)"));
+        "CREATE TABLE ledger_probe (n integer PRIMARY KEY, pad bytea)"),
+        // Version 2: a call sent with an Idempotency-Key keeps it (with its batch or fill call id) and a
+        // digest of its request; within one API key a key names one record, across every replica.
+        List.of(
+            "ALTER TABLE invocations ADD COLUMN idem text COLLATE \"C\"",
+            "ALTER TABLE invocations ADD COLUMN request_hash text",
+            "CREATE UNIQUE INDEX invocations_by_idem ON invocations (key_id, idem) WHERE idem IS NOT NULL"));
   }
 
   @Override

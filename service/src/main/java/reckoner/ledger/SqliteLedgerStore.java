@@ -495,6 +495,21 @@ final class SqliteLedgerStore extends JdbcLedgerStore {
                 + " k.name AS key_id, r.name AS run, i.ref, t.name AS tool, i.version, i.args, i.text, i.outcome, i.cached,"
                 + " i.elapsed_us, i.data_version, i.as_of FROM invocations i"
                 + " JOIN ledger_names k ON k.n = i.key_n LEFT JOIN ledger_names r ON r.n = i.run_n"
+                + " JOIN ledger_names t ON t.n = i.tool_n"),
+        // Version 4: a call sent with an Idempotency-Key keeps it (with its batch or fill call id) and a
+        // digest of its request; within one API key a key names one record.
+        List.of(
+            "ALTER TABLE invocations ADD COLUMN idem TEXT",
+            "ALTER TABLE invocations ADD COLUMN request_hash TEXT",
+            "CREATE UNIQUE INDEX invocations_by_idem ON invocations (key_n, idem) WHERE idem IS NOT NULL",
+            "DROP VIEW invocation_records",
+            "CREATE VIEW invocation_records AS SELECT"
+                + " printf('%08x-%04x-%04x-%04x-%012x', (i.seq >> 32) & 0xffffffff, (i.seq >> 16) & 0xffff, i.seq & 0xffff,"
+                + " (i.id_lo >> 48) & 0xffff, i.id_lo & 0xffffffffffff) AS id,"
+                + " strftime('%Y-%m-%dT%H:%M:%fZ', (i.seq >> 16) / 1000.0, 'unixepoch') AS ts,"
+                + " k.name AS key_id, r.name AS run, i.ref, t.name AS tool, i.version, i.args, i.text, i.outcome, i.cached,"
+                + " i.elapsed_us, i.data_version, i.as_of, i.idem AS idempotency_key FROM invocations i"
+                + " JOIN ledger_names k ON k.n = i.key_n LEFT JOIN ledger_names r ON r.n = i.run_n"
                 + " JOIN ledger_names t ON t.n = i.tool_n"));
   }
 

@@ -49,7 +49,7 @@ final class FakeStore implements LedgerStore {
   }
 
   @Override
-  public void append(List<Invocation> invocations) {
+  public java.util.Set<String> append(List<Invocation> invocations) {
     entered.countDown();
     try {
       if (!gate.await(30, TimeUnit.SECONDS)) {
@@ -68,6 +68,33 @@ final class FakeStore implements LedgerStore {
     synchronized (this) {
       batches.add(List.copyOf(invocations));
     }
+    return java.util.Set.of();
+  }
+
+  @Override
+  public java.util.Map<String, Invocation> findByIdempotencyKeys(String keyId, java.util.Collection<String> keys) {
+    java.util.Map<String, Invocation> found = new java.util.HashMap<>();
+    synchronized (this) {
+      batches.forEach(b -> b.forEach(i -> {
+        if (i.keyId().equals(keyId) && i.idempotencyKey() != null && keys.contains(i.idempotencyKey())) {
+          found.put(i.idempotencyKey(), i);
+        }
+      }));
+    }
+    return found;
+  }
+
+  @Override
+  public List<Invocation> findByIdempotencyPrefix(String keyId, String prefix, int limit) {
+    List<Invocation> found = new ArrayList<>();
+    synchronized (this) {
+      batches.forEach(b -> b.forEach(i -> {
+        if (i.keyId().equals(keyId) && i.idempotencyKey() != null && i.idempotencyKey().startsWith(prefix)) {
+          found.add(i);
+        }
+      }));
+    }
+    return found.subList(0, Math.min(limit, found.size()));
   }
 
   @Override

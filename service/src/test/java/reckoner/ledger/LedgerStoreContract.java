@@ -79,6 +79,38 @@ abstract class LedgerStoreContract {
 
   // ---- append and read back ----
 
+  // ---- idempotency keys ----
+
+  @Test
+  void append_idempotencyKeyHeldByAnotherRecordOfTheKey_isNotWritten_andItsIdIsReturned() {
+    Invocation first = call(0, 1, HERON).idempotency("batch-7\u001f\"line-1\"", "hash-a").build();
+    assertEquals(java.util.Set.of(), store.append(List.of(first)));
+    Invocation race = call(5, 1, HERON).idempotency("batch-7\u001f\"line-1\"", "hash-a").build();
+    Invocation other = call(5, 2, HERON).idempotency("batch-7\u001f\"line-2\"", "hash-a").build();
+    Invocation otherKey = call(5, 3, OTTER).idempotency("batch-7\u001f\"line-1\"", "hash-a").build();
+    assertEquals(java.util.Set.of(race.id()), store.append(List.of(race, other, otherKey)));
+    assertEquals(List.of(first.id(), other.id(), otherKey.id()),
+        store.query(admin()).invocations().stream().map(Invocation::id).toList());
+    assertEquals(java.util.Set.of(), store.append(List.of(first)), "a replayed batch is still taken as written");
+  }
+
+  @Test
+  void findByIdempotencyKeys_andPrefix_findOnlyTheKeysRecords() {
+    store.append(List.of(
+        call(0, 1, HERON).idempotency("k\u001f1", "h").build(),
+        call(0, 2, HERON).idempotency("k\u001f2", "h").build(),
+        call(0, 3, HERON).idempotency("kk\u001f1", "h").build(),
+        call(0, 4, OTTER).idempotency("k\u001f3", "h").build(),
+        call(0, 5, HERON).build()));
+    java.util.Map<String, Invocation> found = store.findByIdempotencyKeys(HERON, List.of("k\u001f1", "k\u001f3", "k\u001f9"));
+    assertEquals(java.util.Set.of("k\u001f1"), found.keySet());
+    assertEquals("h", found.get("k\u001f1").requestHash());
+    assertEquals(List.of("k\u001f1", "k\u001f2"),
+        store.findByIdempotencyPrefix(HERON, "k\u001f", 10).stream().map(Invocation::idempotencyKey).toList());
+    assertEquals(1, store.findByIdempotencyPrefix(HERON, "k\u001f", 1).size());
+    assertEquals(List.of(), store.findByIdempotencyPrefix("key-nobody", "k\u001f", 10));
+  }
+
   @Test
   void append_thenQueryAll_returnsEveryFieldInIdOrder() {
     List<Invocation> sample = sample();
@@ -263,7 +295,7 @@ abstract class LedgerStoreContract {
     assertEquals("{\"id\":\"" + id(0, 0) + "\",\"ts\":\"2031-05-17T09:30:00.000Z\",\"key_id\":\"key-heron\","
         + "\"run\":\"orchard-survey-7\",\"ref\":\"plot-12:row-3\",\"tool\":\"arith\",\"version\":1,"
         + "\"args\":{\"expr\":\"1250/4000\",\"places\":2,\"rounding\":\"half_even\"},\"text\":\"0.31\","
-        + "\"outcome\":\"ok\",\"cached\":false,\"elapsed_us\":42,\"data_version\":null,\"as_of\":null}", lines[0]);
+        + "\"outcome\":\"ok\",\"cached\":false,\"elapsed_us\":42,\"data_version\":null,\"as_of\":null,\"idempotency_key\":null}", lines[0]);
     assertEquals(sample().get(1).toJson(), lines[1]);
   }
 

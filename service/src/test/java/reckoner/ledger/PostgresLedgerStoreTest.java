@@ -33,9 +33,9 @@ final class PostgresLedgerStoreTest extends LedgerStoreContract {
   }
 
   @Test
-  void open_twice_migratesOnceToVersion1() {
-    assertEquals(1, ((PostgresLedgerStore) store).schemaVersion());
+  void open_twice_migratesOnceToVersion2() {
+    assertEquals(2, ((PostgresLedgerStore) store).schemaVersion());
     ((PostgresLedgerStore) store).migrate();
-    assertEquals(1, ((PostgresLedgerStore) store).schemaVersion());
+    assertEquals(2, ((PostgresLedgerStore) store).schemaVersion());
   }
 }

@@ -40,7 +40,7 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
   }
 
   @Test
-  void open_newDataDir_createsWalFileWithSchemaVersion3() throws Exception {
+  void open_newDataDir_createsWalFileWithSchemaVersion4() throws Exception {
     try (Connection c = raw(); Statement st = c.createStatement()) {
       try (ResultSet rs = st.executeQuery("PRAGMA journal_mode")) {
         rs.next();
@@ -52,11 +52,11 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
       }
       try (ResultSet rs = st.executeQuery("SELECT version FROM ledger_schema")) {
         assertTrue(rs.next());
-        assertEquals(3, rs.getInt(1));
+        assertEquals(4, rs.getInt(1));
         assertFalse(rs.next());
       }
     }
-    assertEquals(3, ((SqliteLedgerStore) store).schemaVersion());
+    assertEquals(4, ((SqliteLedgerStore) store).schemaVersion());
   }
 
   @Test
@@ -75,7 +75,7 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
       st.execute("UPDATE ledger_schema SET version = 9");
     }
     IllegalStateException e = assertThrows(IllegalStateException.class, () -> LedgerStore.sqlite(dir));
-    assertEquals("the ledger's schema is version 9 but this build knows up to 3; run a build at least as new as the one that wrote it",
+    assertEquals("the ledger's schema is version 9 but this build knows up to 4; run a build at least as new as the one that wrote it",
         e.getMessage());
   }
 
@@ -228,7 +228,7 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
   /** Opens the hand-written file, which migrates it, and finds every record in id order under the current schema. */
   private void reopenMigrated(List<Invocation> records) {
     store = LedgerStore.sqlite(dir);
-    assertEquals(3, ((SqliteLedgerStore) store).schemaVersion());
+    assertEquals(4, ((SqliteLedgerStore) store).schemaVersion());
     List<Invocation> expected = new ArrayList<>(records);
     expected.sort(BY_ID);
     assertEquals(expected, store.query(admin()).invocations());
