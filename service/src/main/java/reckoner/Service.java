@@ -40,9 +40,13 @@ public final class Service implements AutoCloseable {
   private final KeyStore keys; // null: no keys file
   private final java.util.List<HttpApi.RouteInfo> routes;
   private final Monitoring monitoring;
+  private final java.util.function.ToIntFunction<java.time.Duration> drainStreams;
+  /** How long a stop waits for NDJSON streams to answer what they read and write their trailers. */
+  static final java.time.Duration STREAM_DRAIN = java.time.Duration.ofSeconds(20);
 
   private Service(Javalin http, ExecutorService calls, DataWatcher watcher, DataWatcher searchWatcher, Engine engine,
-      KeyStore keys, java.util.List<HttpApi.RouteInfo> routes, Monitoring monitoring) {
+      KeyStore keys, java.util.List<HttpApi.RouteInfo> routes, Monitoring monitoring,
+      java.util.function.ToIntFunction<java.time.Duration> drainStreams) {
     this.http = http;
     this.calls = calls;
     this.watcher = watcher;
@@ -51,6 +55,7 @@ public final class Service implements AutoCloseable {
     this.keys = keys;
     this.routes = routes;
     this.monitoring = monitoring;
+    this.drainStreams = drainStreams;
   }
 
   /** The keys file's keys, watched for changes; null when there is no keys file. A bad file stops the start. */
@@ -91,7 +96,7 @@ public final class Service implements AutoCloseable {
     HttpApi.Settings settings = new HttpApi.Settings(config.maxBodyBytes(), config.maxBatchBytes(), engine.markup(),
         OpenApi.assemble(catalog, json, VERSION), engine::isReady, calls, engine.facts(), engine.ledger(), engine.search(), keys,
         new RateLimits(config.access().rateBurstSeconds()), new StreamLimits(config.access().maxStreamsPerKey()),
-        config.bounds());
+        config.bounds(), VERSION);
     Monitoring monitoring = new Monitoring(metrics, engine.writer(), config.cacheSize() > 0 ? engine.cache().caffeine() : null,
         new Monitoring.About(VERSION, instanceName(config), config.ledger(), started), config.accessLog(), clock);
     HttpApi.Built built = HttpApi.create(engine.invoker(), monitoring, json, settings);
@@ -119,7 +124,7 @@ public final class Service implements AutoCloseable {
     } else {
       LOG.info("no API keys configured: listening on loopback only");
     }
-    return new Service(http, calls, watcher, searchWatcher, engine, keys, built.routes(), monitoring);
+    return new Service(http, calls, watcher, searchWatcher, engine, keys, built.routes(), monitoring, built.drain());
   }
 
   /** The host name, as the status page names this process (a pod's name on Kubernetes). */
@@ -187,6 +192,10 @@ public final class Service implements AutoCloseable {
     }
     if (keys != null) {
       keys.close();
+    }
+    int streamsLeft = drainStreams.applyAsInt(STREAM_DRAIN); // streams stop reading, answer what they read, end with a trailer
+    if (streamsLeft > 0) {
+      LOG.warn("{} NDJSON streams were still answering after {} s; they are cut", streamsLeft, STREAM_DRAIN.toSeconds());
     }
     http.stop(); // no new calls; calls in flight finish
     calls.shutdown();

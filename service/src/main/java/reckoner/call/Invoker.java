@@ -116,6 +116,11 @@ public final class Invoker {
     return call(new CallRequest(tool, version, textArgs(text), asOf, run, ref, keyId), review);
   }
 
+  /** The arguments of a call given in its free-text form: {@code {"text": TEXT}}. */
+  public static JsonNode textArguments(String text) {
+    return textArgs(text);
+  }
+
   private static JsonNode textArgs(String text) {
     return tools.jackson.databind.node.JsonNodeFactory.instance.objectNode().put(Arguments.TEXT, text);
   }

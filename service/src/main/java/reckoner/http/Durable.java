@@ -28,6 +28,24 @@ final class Durable {
     }
   }
 
+  /**
+   * Whether the record was not written because another record holds its idempotency key (a retry
+   * that raced its first attempt): the caller is then given that record's answer.
+   */
+  static boolean superseded(CompletableFuture<Void> durable) {
+    if (!durable.isCompletedExceptionally()) {
+      return false;
+    }
+    try {
+      durable.join();
+      return false;
+    } catch (java.util.concurrent.CompletionException e) {
+      return e.getCause() instanceof reckoner.ledger.SupersededException;
+    } catch (java.util.concurrent.CancellationException e) {
+      return false;
+    }
+  }
+
   /** Null once durable, else the refusal to answer with. */
   static ApiException failure(CompletableFuture<Void> durable) {
     try {

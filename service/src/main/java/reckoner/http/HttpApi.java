@@ -36,7 +36,7 @@ public final class HttpApi {
   /** What the routes need, made by {@code Service}. */
   public record Settings(long maxBodyBytes, long maxBatchBytes, Markup markup, ObjectNode openApi, BooleanSupplier ready,
       ExecutorService callExecutor, FactStore facts, LedgerStore ledger, SearchStore search, KeyStore keys, RateLimits rates,
-      StreamLimits streams, ServiceConfig.Bounds bounds) {}
+      StreamLimits streams, ServiceConfig.Bounds bounds, String build) {}
 
   /** One route: method, path, what it needs of its caller, and its handler. */
   record Route(String method, String path, Need need, Handler handler) {}
@@ -44,8 +44,12 @@ public final class HttpApi {
   /** A route as the outside sees it: method, path, and the scope it needs ({@code open} for none). */
   public record RouteInfo(String method, String path, String scope) {}
 
-  /** The server, not yet started, and the routes it serves. */
-  public record Built(Javalin app, List<RouteInfo> routes) {}
+  /**
+   * The server, not yet started, the routes it serves, and how to drain its NDJSON streams before it
+   * stops: they read no further lines, answer what they read, and write their trailers; the function
+   * returns the streams still open after the time given.
+   */
+  public record Built(Javalin app, List<RouteInfo> routes, java.util.function.ToIntFunction<java.time.Duration> drain) {}
 
   private HttpApi() {}
 
@@ -54,17 +58,19 @@ public final class HttpApi {
     Access access = new Access(settings.keys(), settings.rates(), settings.streams());
     Bodies bodies = new Bodies(settings.maxBodyBytes());
     CallMetrics callMetrics = monitoring.calls();
-    ToolRoutes tools = new ToolRoutes(invoker, responses, callMetrics, bodies, access);
+    Retries retries = new Retries(settings.ledger());
+    ToolRoutes tools = new ToolRoutes(invoker, responses, callMetrics, bodies, access, retries);
     BatchRoutes batch = new BatchRoutes(invoker, responses, callMetrics, new Bodies(settings.maxBatchBytes()),
-        settings.callExecutor(), access, settings.bounds().maxBatchCalls());
+        settings.callExecutor(), access, retries, settings.bounds().maxBatchCalls());
     FactsRoutes facts = new FactsRoutes(settings.facts(), responses);
     KeysRoutes keys = new KeysRoutes(settings.keys(), responses);
-    LedgerRoutes ledger = new LedgerRoutes(settings.ledger(), responses);
+    LedgerRoutes ledger = new LedgerRoutes(settings.ledger(), responses,
+        () -> new reckoner.audit.Audit(invoker.catalog(), json), settings.build());
     SearchRoutes search = new SearchRoutes(settings.search(), responses);
     // The monitoring routes' handlers exist once the tracker is installed in the configuration below.
     java.util.concurrent.atomic.AtomicReference<Monitoring.Handlers> watch = new java.util.concurrent.atomic.AtomicReference<>();
     SpliceRoutes splice = new SpliceRoutes(new Filler(invoker), responses, callMetrics, new Bodies(settings.maxBatchBytes()),
-        settings.markup(), access);
+        settings.markup(), access, retries);
     java.util.concurrent.atomic.AtomicReference<byte[]> openApi = new java.util.concurrent.atomic.AtomicReference<>();
     // Every route, with what it needs of its caller: the one table the server, its OpenAPI document
     // and the access tests read.
@@ -77,6 +83,7 @@ public final class HttpApi {
         new Route("POST", "/v1/fill", Need.INVOKE, splice::fill),
         new Route("GET", "/v1/invocations", Need.LEDGER_READ, ledger::query),
         new Route("GET", "/v1/invocations/export", Need.LEDGER_READ, ledger::export),
+        new Route("POST", "/v1/admin/audit", Need.ADMIN, ledger::audit),
         new Route("GET", "/v1/admin/facts", Need.ADMIN, facts::show),
         new Route("POST", "/v1/admin/facts/reload", Need.ADMIN, facts::reload),
         new Route("GET", "/v1/admin/keys", Need.ADMIN, keys::show),
@@ -131,7 +138,7 @@ public final class HttpApi {
     ObjectNode document = settings.openApi().deepCopy();
     OpenApiSecurity.document(document, infos, settings.keys() != null);
     openApi.set(json.writeValueAsBytes(document));
-    return new Built(app, infos);
+    return new Built(app, infos, batch::drain);
   }
 
   /** Closes connections that stay silent this long (slow or stalled clients); set once the connectors exist. */

@@ -20,10 +20,25 @@ import reckoner.tool.ToolException;
 final class LedgerRoutes {
   private final LedgerStore store;
   private final Responses responses;
+  private final java.util.function.Supplier<reckoner.audit.Audit> audits;
+  private final String build;
 
-  LedgerRoutes(LedgerStore store, Responses responses) {
+  LedgerRoutes(LedgerStore store, Responses responses, java.util.function.Supplier<reckoner.audit.Audit> audits, String build) {
     this.store = store;
     this.responses = responses;
+    this.audits = audits;
+    this.build = build;
+  }
+
+  /**
+   * {@code POST /v1/admin/audit}: every record the filters select (those of {@code /v1/invocations},
+   * plus {@code key}) run again on this build; the report names each answer that differs.
+   */
+  void audit(Context ctx) throws Exception {
+    InvocationQuery query = parse(ctx, Access.caller(ctx));
+    reckoner.audit.Audit audit = audits.get();
+    store.forEach(query, audit::check);
+    responses.json(ctx, 200, reckoner.audit.AuditReports.toJson(audit.report(), build, responses.json()));
   }
 
   void query(Context ctx) {

@@ -18,6 +18,7 @@ final class Problem {
       case FORBIDDEN -> 403;
       case UNKNOWN_TOOL, UNKNOWN_ENDPOINT, NOT_FOUND -> 404;
       case METHOD_NOT_ALLOWED -> 405;
+      case IDEMPOTENCY_CONFLICT -> 409;
       case NOT_ACCEPTABLE -> 406;
       case PAYLOAD_TOO_LARGE -> 413;
       case UNSUPPORTED_MEDIA_TYPE -> 415;
@@ -41,6 +42,7 @@ final class Problem {
       case UNKNOWN_ENDPOINT -> "Unknown endpoint";
       case NOT_FOUND -> "Not found";
       case METHOD_NOT_ALLOWED -> "Method not allowed";
+      case IDEMPOTENCY_CONFLICT -> "Idempotency conflict";
       case NOT_ACCEPTABLE -> "Not acceptable";
       case PAYLOAD_TOO_LARGE -> "Payload too large";
       case UNSUPPORTED_MEDIA_TYPE -> "Unsupported media type";

@@ -1,6 +1,8 @@
 package reckoner.http;
 
 import io.javalin.http.Context;
+import java.util.List;
+import java.util.Map;
 import java.util.Optional;
 import reckoner.results.ResultJson;
 import reckoner.splice.Filler;
@@ -21,14 +23,39 @@ final class SpliceRoutes {
   private final Bodies bodies;
   private final Markup serverMarkup;
   private final Access access;
+  private final Retries retries;
 
-  SpliceRoutes(Filler filler, Responses responses, CallMetrics metrics, Bodies bodies, Markup serverMarkup, Access access) {
+  SpliceRoutes(Filler filler, Responses responses, CallMetrics metrics, Bodies bodies, Markup serverMarkup, Access access,
+      Retries retries) {
     this.filler = filler;
     this.responses = responses;
     this.metrics = metrics;
     this.bodies = bodies;
     this.serverMarkup = serverMarkup;
     this.access = access;
+    this.retries = retries;
+  }
+
+  /** The records an earlier attempt of this request made, by position, when it carries a key; checked for content. */
+  private static Filler.Replay replay(Map<String, reckoner.ledger.Invocation> before, Filler.Tags tags) {
+    return position -> java.util.Optional.ofNullable(before.get(tags.idempotencyKeyAt(position)))
+        .map(inv -> new reckoner.call.Recorded(inv.toOutcome(), java.util.concurrent.CompletableFuture.completedFuture(null)));
+  }
+
+  private static void requireSameRequest(Map<String, reckoner.ledger.Invocation> before, String hash) {
+    for (reckoner.ledger.Invocation inv : before.values()) {
+      Retries.requireSameRequest(inv, hash);
+    }
+  }
+
+  /** Keeps the records of a keyed fill's or splice's new calls for quick retries. */
+  private void remember(Filler.Tags tags, Caller caller, Filler.Spliced s) {
+    if (!s.replayed() && tags.idempotencyKey() != null) {
+      reckoner.call.CallRequest request = new reckoner.call.CallRequest(s.call().tool(), s.call().version(),
+          reckoner.call.Invoker.textArguments(s.call().input()), tags.asOf(), tags.run(), null, tags.keyId(),
+          tags.idempotencyKeyAt(s.position()), tags.requestHash());
+      retries.remember(reckoner.ledger.Invocation.of(request, s.outcome(), caller.keyId(), s.outcome().cached()));
+    }
   }
 
   /** Body: {@code {"call":"arith(1250/4000)","markup":{...}}}, or the call itself as text/plain. */
@@ -36,13 +63,33 @@ final class SpliceRoutes {
     boolean asText = MediaTypes.wantsText(ctx.header("Accept"));
     Request r = read(ctx, "call");
     Filler.Tags tags = tags(ctx);
-    access.takeOrRefuse(Access.caller(ctx), 1);
-    Filler.Spliced s;
-    try {
-      s = filler.splice(r.text, r.markup, tags);
-    } catch (ToolException e) {
-      responses.problem(ctx, e.error(), asText, null);
-      return;
+    Caller caller = Access.caller(ctx);
+    String key = Retries.key(ctx);
+    try (Retries.Running running = key == null ? null : retries.begin(caller, key)) {
+      Map<String, reckoner.ledger.Invocation> before = Map.of();
+      if (key != null) {
+        tags = tags.withIdempotency(key, Retries.hash("splice", r.text, r.markup, tags.run(), tags.ref(), tags.asOf()));
+        before = retries.recorded(caller, List.of(tags.idempotencyKeyAt(0)));
+        requireSameRequest(before, tags.requestHash());
+      }
+      if (before.isEmpty()) {
+        access.takeOrRefuse(caller, 1);
+      }
+      Filler.Spliced s;
+      try {
+        s = filler.splice(r.text, r.markup, tags, replay(before, tags));
+      } catch (ToolException e) {
+        responses.problem(ctx, e.error(), asText, null);
+        return;
+      }
+      remember(tags, caller, s);
+      answer(ctx, s, asText);
+    }
+  }
+
+  private void answer(Context ctx, Filler.Spliced s, boolean asText) {
+    if (s.replayed()) {
+      ctx.header(Retries.REPLAYED_HEADER, "true");
     }
     metrics.record(s.outcome());
     ApiException unrecorded = Durable.failure(s.durable());
@@ -64,6 +111,9 @@ final class SpliceRoutes {
       ObjectNode problem = responses.problemBody(s.outcome().error().get(), s.outcome().invocationId());
       problem.put("call", s.call().toString());
       problem.put("spliced", s.spliced());
+      if (s.replayed()) {
+        problem.put("replayed", true);
+      }
       ctx.header(Responses.ERROR_CODE_HEADER, s.outcome().error().get().code().wireName());
       ctx.status(Problem.status(s.outcome().error().get().code())).contentType(MediaTypes.PROBLEM)
           .result(responses.json().writeValueAsBytes(problem));
@@ -72,6 +122,9 @@ final class SpliceRoutes {
     ObjectNode body = ResultJson.outcome(responses.object(), null, s.outcome());
     body.put("call", s.call().toString());
     body.put("spliced", s.spliced());
+    if (s.replayed()) {
+      body.put("replayed", true);
+    }
     responses.json(ctx, 200, body);
   }
 
@@ -80,10 +133,27 @@ final class SpliceRoutes {
     boolean asText = MediaTypes.wantsText(ctx.header("Accept"));
     Request r = read(ctx, "document");
     Filler.Tags tags = tags(ctx);
-    access.takeOrRefuse(Access.caller(ctx), Math.max(1, Filler.countCalls(r.text, r.markup))); // each call counts
-    Filler.Filled filled = filler.fill(r.text, r.markup, r.onError, tags);
+    Caller caller = Access.caller(ctx);
+    String key = Retries.key(ctx);
+    int calls = Filler.countCalls(r.text, r.markup);
+    Filler.Filled filled;
+    try (Retries.Running running = key == null ? null : retries.begin(caller, key)) {
+      Map<String, reckoner.ledger.Invocation> before = Map.of();
+      if (key != null) {
+        tags = tags.withIdempotency(key, Retries.hash("fill", r.text, r.markup, r.onError, tags.run(), tags.ref(), tags.asOf()));
+        before = retries.recordedUnder(caller, key, calls + 1);
+        requireSameRequest(before, tags.requestHash());
+      }
+      access.takeOrRefuse(caller, Math.max(1, calls - before.size())); // each call counts; a replayed one is free
+      filled = filler.fill(r.text, r.markup, r.onError, tags, replay(before, tags));
+      Filler.Tags keyed = tags;
+      filled.calls().forEach(c -> remember(keyed, caller, c));
+    }
     filled.calls().forEach(c -> metrics.record(c.outcome()));
     Durable.await(filled.durable()); // a fill is acknowledged whole, or not at all
+    if (!filled.calls().isEmpty() && filled.calls().stream().allMatch(Filler.Spliced::replayed)) {
+      ctx.header(Retries.REPLAYED_HEADER, "true");
+    }
     if (asText) {
       responses.text(ctx, 200, filled.document());
       return;

@@ -6,6 +6,8 @@ import reckoner.call.CallRequest;
 import reckoner.call.Invoker;
 import reckoner.call.Outcome;
 import reckoner.call.Recorded;
+import reckoner.ledger.Invocation;
+import java.util.List;
 import reckoner.spec.ToolCatalog;
 import reckoner.spec.ToolSpec;
 import reckoner.tool.Answer;
@@ -30,13 +32,15 @@ final class ToolRoutes {
   private final CallMetrics metrics;
   private final Bodies bodies;
   private final Access access;
+  private final Retries retries;
 
-  ToolRoutes(Invoker invoker, Responses responses, CallMetrics metrics, Bodies bodies, Access access) {
+  ToolRoutes(Invoker invoker, Responses responses, CallMetrics metrics, Bodies bodies, Access access, Retries retries) {
     this.invoker = invoker;
     this.responses = responses;
     this.metrics = metrics;
     this.bodies = bodies;
     this.access = access;
+    this.retries = retries;
   }
 
   void list(Context ctx) {
@@ -78,24 +82,72 @@ final class ToolRoutes {
     Caller caller = Access.caller(ctx);
     CallRequest request = new CallRequest(id.name(), OptionalInt.of(id.version()), args,
         tag(ctx, AS_OF_HEADER), tag(ctx, RUN_HEADER), tag(ctx, REF_HEADER), caller.keyIdOrNull());
-    access.takeOrRefuse(caller, 1);
+    String key = Retries.key(ctx);
+    if (key == null) {
+      access.takeOrRefuse(caller, 1);
+      run(ctx, request, asText);
+      return;
+    }
+    // One call named by the key: answered from its record when sent again, run once otherwise.
+    String hash = Retries.hash("invoke", id, args, request.asOf(), request.run(), request.ref());
+    try (Retries.Running running = retries.begin(caller, key)) {
+      Invocation before = retries.recorded(caller, List.of(key)).get(key);
+      if (before != null) {
+        Retries.requireSameRequest(before, hash);
+        reply(ctx, before.toOutcome(), asText, true);
+        return;
+      }
+      access.takeOrRefuse(caller, 1);
+      CallRequest keyed = request.withIdempotency(key, hash);
+      Recorded recorded = run(ctx, keyed, asText);
+      if (recorded != null) {
+        retries.remember(Invocation.of(keyed, recorded.outcome(), caller.keyId(), recorded.outcome().cached()));
+      }
+    }
+  }
+
+  /** Runs the call and answers it; returns what was recorded, or null when the ledger could not take it. */
+  private Recorded run(Context ctx, CallRequest request, boolean asText) {
     Recorded recorded = invoker.call(request);
     Outcome outcome = recorded.outcome();
     metrics.record(outcome);
+    if (request.idempotencyKey() != null && Durable.superseded(recorded.durable())) {
+      // A retry of this call raced it on another replica and was recorded first: answer with that record.
+      Invocation winner = retries.recorded(Access.caller(ctx), List.of(request.idempotencyKey())).get(request.idempotencyKey());
+      if (winner != null) {
+        reply(ctx, winner.toOutcome(), asText, true);
+        return null;
+      }
+    }
     ApiException unrecorded = Durable.failure(recorded.durable());
     if (unrecorded != null) {
       unrecorded.headers().forEach(ctx::header);
       responses.problem(ctx, unrecorded.error(), asText, null);
-      return;
+      return null;
+    }
+    reply(ctx, outcome, asText, false);
+    return recorded;
+  }
+
+  private void reply(Context ctx, Outcome outcome, boolean asText, boolean replayed) {
+    if (replayed) {
+      ctx.header(Retries.REPLAYED_HEADER, "true");
     }
     if (outcome.isOk()) {
-      answer(ctx, outcome, asText);
+      answer(ctx, outcome, asText, replayed);
+    } else if (replayed && !asText) {
+      ObjectNode problem = responses.problemBody(outcome.error().get(), outcome.invocationId());
+      problem.put("replayed", true);
+      ctx.header(Responses.ERROR_CODE_HEADER, outcome.error().get().code().wireName());
+      ctx.header(Responses.INVOCATION_ID_HEADER, outcome.invocationId());
+      ctx.status(Problem.status(outcome.error().get().code())).contentType(MediaTypes.PROBLEM)
+          .result(responses.json().writeValueAsBytes(problem));
     } else {
       responses.problem(ctx, outcome.error().get(), asText, outcome.invocationId());
     }
   }
 
-  private void answer(Context ctx, Outcome outcome, boolean asText) {
+  private void answer(Context ctx, Outcome outcome, boolean asText, boolean replayed) {
     Answer answer = outcome.answer().get();
     ctx.header(Responses.INVOCATION_ID_HEADER, outcome.invocationId());
     if (asText) {
@@ -112,6 +164,9 @@ final class ToolRoutes {
     answer.dataVersion().ifPresent(v -> body.put("data_version", v));
     answer.clockReadAt().ifPresent(t -> body.put("as_of", t.toString()));
     answer.note().ifPresent(n -> body.put("reading", n));
+    if (replayed) {
+      body.put("replayed", true);
+    }
     responses.json(ctx, 200, body);
   }
 

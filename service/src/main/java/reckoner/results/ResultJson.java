@@ -68,6 +68,9 @@ public final class ResultJson {
       n.put("position", c.position());
       n.put("call", c.call().toString());
       outcome(n, null, c.outcome());
+      if (c.replayed()) {
+        n.put("replayed", true);
+      }
       errors += c.isOk() ? 0 : 1;
     }
     ArrayNode malformed = node.putArray("malformed");

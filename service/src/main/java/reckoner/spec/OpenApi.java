@@ -50,7 +50,8 @@ public final class OpenApi {
         .put("description", "One BatchCall object (see components) a line, UTF-8, each line at most max-batch-bytes");
     batch.withObject("/responses/200/content").putObject("application/x-ndjson").putObject("schema").put("type", "string")
         .put("description", "One CallResult object a line, in the order of the calls");
-    problems(batch, "400", "406", "413", "415", "422", "503");
+    idempotent(batch);
+    problems(batch, "409", "400", "406", "413", "415", "422", "503");
     paths.putObject("/v1/batch").set("post", batch);
 
     ObjectNode splice = withJsonBody(json, plain(json, "splice",
@@ -60,7 +61,8 @@ public final class OpenApi {
         .put("description", "The call itself, with or without the markup around it");
     splice.withObject("/responses/200/content").putObject("text/plain").putObject("schema").put("type", "string")
         .put("description", "The line the document would hold for the call");
-    problems(splice, "400", "404", "406", "413", "415", "422", "503");
+    idempotent(splice);
+    problems(splice, "409", "400", "404", "406", "413", "415", "422", "503");
     paths.putObject("/v1/splice").set("post", splice);
 
     ObjectNode fill = withJsonBody(json, plain(json, "fill",
@@ -70,7 +72,8 @@ public final class OpenApi {
         .put("description", "The document itself, filled with the server's markup and on_error splice_error");
     fill.withObject("/responses/200/content").putObject("text/plain").putObject("schema").put("type", "string")
         .put("description", "The filled document");
-    problems(fill, "400", "406", "413", "415", "503");
+    idempotent(fill);
+    problems(fill, "409", "400", "406", "413", "415", "503");
     paths.putObject("/v1/fill").set("post", fill);
 
     ObjectNode invocations = plain(json, "invocations",
@@ -84,6 +87,12 @@ public final class OpenApi {
     ledgerParameters(export);
     problems(export, "400", "503");
     paths.putObject("/v1/invocations/export").set("get", export);
+    ObjectNode audit = plain(json, "audit", "Run every recorded call the filters select again on this build, with its recorded "
+        + "reference time and data version; report each answer that differs, byte for byte, by tool version, and the records "
+        + "that cannot be checked (their data no longer loaded) apart", "application/json", null);
+    ledgerParameters(audit);
+    problems(audit, "400", "503");
+    paths.putObject("/v1/admin/audit").set("post", audit);
     paths.putObject("/v1/admin/facts").set("get", plain(json, "factSets", "The fact sets served and their data versions",
         "application/json", null));
     ObjectNode reload = plain(json, "reloadFacts",
@@ -130,6 +139,8 @@ public final class OpenApi {
     ArrayNode params = op.putArray("parameters");
     header(params, "Reckoner-Run", "Caller's run tag, recorded with the invocation");
     header(params, "Reckoner-Ref", "Caller's ref tag for this call, recorded with the invocation");
+    header(params, "Idempotency-Key", "Names the call for retries: sent again with the same body, it is answered from its "
+        + "record (replayed: true) and not run or recorded again; with another body it is 409 idempotency_conflict");
     if (entry.spec().declaresArgument("as_of")) {
       header(params, "Reckoner-As-Of", "Reference time (ISO 8601) used when the arguments carry no as_of");
     }
@@ -154,7 +165,7 @@ public final class OpenApi {
     ObjectNode okContent = ok.putObject("content");
     okContent.putObject("application/json").putObject("schema").put("$ref", "#/components/schemas/InvokeResult");
     okContent.putObject("text/plain").putObject("schema").put("type", "string");
-    for (String status : new String[] {"400", "404", "406", "413", "415", "422", "503"}) {
+    for (String status : new String[] {"400", "404", "406", "409", "413", "415", "422", "503"}) {
       ObjectNode r = responses.putObject(status);
       r.put("description", "An RFC 9457 problem with a stable code; with Accept: text/plain, the one-line error text");
       ObjectNode c = r.putObject("content");
@@ -217,6 +228,13 @@ public final class OpenApi {
       c.putObject("application/problem+json").putObject("schema").put("$ref", "#/components/schemas/Problem");
       c.putObject("text/plain").putObject("schema").put("type", "string");
     }
+  }
+
+  /** The Idempotency-Key header of a batch, splice or fill: it names the request, and each call in it by its id or position. */
+  private static void idempotent(ObjectNode op) {
+    header(op.withArray("parameters"), "Idempotency-Key", "Names the request for retries: sent again with the same "
+        + "content, the calls it recorded are answered from the ledger (replayed: true) and only the rest run; with other "
+        + "content it is 409 idempotency_conflict. In a batch each line's id (or its line number) names the call.");
   }
 
   private static void ledgerParameters(ObjectNode op) {

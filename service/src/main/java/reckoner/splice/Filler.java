@@ -35,8 +35,9 @@ public final class Filler {
   private final Caller caller;
 
   public Filler(Invoker invoker) {
-    this((call, tags, position, review) -> invoker.callText(call.tool(), call.version(), call.input(), tags.asOf(),
-        tags.run(), tags.refAt(position), tags.keyId(), review));
+    this((call, tags, position, review) -> invoker.call(new reckoner.call.CallRequest(call.tool(), call.version(),
+        Invoker.textArguments(call.input()), tags.asOf(), tags.run(), tags.refAt(position), tags.keyId(),
+        tags.idempotencyKeyAt(position), tags.requestHash()), review));
   }
 
   Filler(Caller caller) {
@@ -47,11 +48,31 @@ public final class Filler {
    * The tags a fill's calls travel with, and the API key they are made under; any may be null.
    * {@code ref} is a prefix: each call adds its position.
    */
-  public record Tags(String run, String ref, String asOf, String keyId) {
+  public record Tags(String run, String ref, String asOf, String keyId, String idempotencyKey, String requestHash) {
     public static final Tags NONE = new Tags(null, null, null, null);
+
+    public Tags {
+      if ((idempotencyKey == null) != (requestHash == null)) {
+        throw new IllegalArgumentException("an idempotency key and a request hash come together");
+      }
+    }
+
+    public Tags(String run, String ref, String asOf, String keyId) {
+      this(run, ref, asOf, keyId, null, null);
+    }
 
     public Tags(String run, String ref, String asOf) {
       this(run, ref, asOf, null);
+    }
+
+    /** A copy whose calls are named for retries by {@code key} and their position. This instance is unaffected. */
+    public Tags withIdempotency(String key, String hash) {
+      return new Tags(run, ref, asOf, keyId, key, hash);
+    }
+
+    /** The idempotency key of the call at {@code position}: the fill's key, the separator and {@code pos-N}; or null. */
+    public String idempotencyKeyAt(int position) {
+      return idempotencyKey == null ? null : idempotencyKey + reckoner.ledger.Invocation.CALL_SEPARATOR + "pos-" + position;
     }
 
     String refAt(int position) {
@@ -66,9 +87,10 @@ public final class Filler {
    * @param line the text spliced after the separator (the answer, or an error line), or null when
    *     no line could be spliced and the call stays as written
    * @param spliced the call as the document holds it: with {@code line}, or as written
+   * @param replayed whether the outcome came from the ledger's record of an earlier attempt
    */
   public record Spliced(int position, CallText call, Outcome outcome, String line, String spliced,
-      CompletableFuture<Void> durable) {
+      CompletableFuture<Void> durable, boolean replayed) {
     public boolean isOk() {
       return outcome.isOk();
     }
@@ -92,6 +114,11 @@ public final class Filler {
 
   /** Answers one call written as {@code NAME(INPUT)}, with or without the markup around it. */
   public Spliced splice(String text, Markup markup, Tags tags) throws ToolException {
+    return splice(text, markup, tags, Replay.NONE);
+  }
+
+  /** As {@link #splice(String, Markup, Tags)}, given the record of an earlier attempt (at position 0) when there is one. */
+  public Spliced splice(String text, Markup markup, Tags tags, Replay replay) throws ToolException {
     String body = text.strip();
     if (body.startsWith(markup.open()) && body.endsWith(markup.close()) && body.length() >= markup.open().length() + markup.close().length()) {
       body = body.substring(markup.open().length(), body.length() - markup.close().length());
@@ -101,7 +128,7 @@ public final class Filler {
           + "arith(1+1), with or without the markup around it");
     }
     CallText call = CallText.parse(body);
-    return answer(0, call, markup.open() + call + markup.close(), "", markup, tags);
+    return answer(0, call, markup.open() + call + markup.close(), "", markup, tags, replay);
   }
 
   /** How many calls of {@code document} a fill would answer (its unanswered, well-formed calls). */
@@ -115,8 +142,24 @@ public final class Filler {
     return n;
   }
 
+  /** What a fill that is sent again already recorded: the recorded call at a position, if there is one. */
+  @FunctionalInterface
+  public interface Replay {
+    Replay NONE = position -> Optional.empty();
+
+    Optional<Recorded> at(int position);
+  }
+
   /** Answers every unanswered call of {@code document}; answered calls and literal text stay as they are. */
   public Filled fill(String document, Markup markup, OnError onError, Tags tags) {
+    return fill(document, markup, onError, tags, Replay.NONE);
+  }
+
+  /**
+   * As {@link #fill(String, Markup, OnError, Tags)}, but a call {@code replay} holds a record for is
+   * given that record's outcome rather than run again (a fill sent again with its idempotency key).
+   */
+  public Filled fill(String document, Markup markup, OnError onError, Tags tags, Replay replay) {
     StringBuilder out = new StringBuilder(document.length() + 64);
     List<Spliced> calls = new ArrayList<>();
     List<Malformed> malformed = new ArrayList<>();
@@ -127,7 +170,7 @@ public final class Filler {
         malformed.add(new Malformed(part.position(), part.raw(), part.error().get()));
         out.append(part.raw());
       } else if (part.isUnanswered()) {
-        Spliced s = answer(part.position(), part.call().get(), part.raw(), following(parts, i, markup), markup, tags);
+        Spliced s = answer(part.position(), part.call().get(), part.raw(), following(parts, i, markup), markup, tags, replay);
         calls.add(s);
         if (s.isOk() || onError == OnError.SPLICE_ERROR) {
           out.append(s.spliced());
@@ -156,13 +199,14 @@ public final class Filler {
     return sb.length() <= reach ? sb.toString() : sb.substring(0, reach);
   }
 
-  private Spliced answer(int position, CallText call, String raw, String following, Markup markup, Tags tags) {
-    Recorded recorded = caller.call(call, tags, position,
+  private Spliced answer(int position, CallText call, String raw, String following, Markup markup, Tags tags, Replay replay) {
+    Optional<Recorded> recordedBefore = replay.at(position);
+    Recorded recorded = recordedBefore.isPresent() ? recordedBefore.get() : caller.call(call, tags, position,
         outcome -> outcome.isOk() ? review(call, outcome, following, markup) : outcome);
     Outcome outcome = recorded.outcome();
     String line = lineFor(call, outcome, following, markup);
     String spliced = line == null ? raw : markup.open() + call + markup.separator() + line + markup.close();
-    return new Spliced(position, call, outcome, line, spliced, recorded.durable());
+    return new Spliced(position, call, outcome, line, spliced, recorded.durable(), recordedBefore.isPresent());
   }
 
   /** The answer as it stands, or {@code unspliceable} when splicing it would change how the document reads. */

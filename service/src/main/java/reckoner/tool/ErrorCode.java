@@ -15,6 +15,8 @@ public enum ErrorCode {
   RATE_LIMITED,
   PAYLOAD_TOO_LARGE,
   UNAVAILABLE,
+  /** An Idempotency-Key sent again with other content, or while its first request still runs (409). */
+  IDEMPOTENCY_CONFLICT,
   // HTTP-level codes that the contract leaves open (see README, "Errors").
   UNKNOWN_ENDPOINT,
   METHOD_NOT_ALLOWED,
@@ -57,6 +59,16 @@ public enum ErrorCode {
   /** The code as it appears on the wire, e.g. {@code syntax_error}. */
   public String wireName() {
     return wireName;
+  }
+
+  /** The code whose wire name is {@code wire}, if any. */
+  public static java.util.Optional<ErrorCode> fromWireName(String wire) {
+    for (ErrorCode c : values()) {
+      if (c.wireName.equals(wire)) {
+        return java.util.Optional.of(c);
+      }
+    }
+    return java.util.Optional.empty();
   }
 
   @Override

@@ -107,8 +107,11 @@ final class BatchTest {
         HttpResponse.BodyHandlers.ofLines());
     assertEquals(200, r.statusCode());
     assertEquals("application/x-ndjson", r.headers().firstValue("content-type").orElse("").split(";")[0]);
-    List<JsonNode> lines = r.body().map(JSON::readTree).toList();
-    assertEquals(3000 - 30, lines.size());
+    List<JsonNode> all = r.body().map(JSON::readTree).toList();
+    assertEquals(3000 - 30 + 1, all.size());
+    JsonNode trailer = all.get(all.size() - 1);
+    assertEquals("{\"end\":true,\"complete\":true,\"answered\":2970,\"replayed\":0}", trailer.toString(), "the stream says it finished");
+    List<JsonNode> lines = all.subList(0, all.size() - 1);
     int expectedLine = 0;
     int i = 0;
     for (JsonNode line : lines) {
@@ -167,6 +170,7 @@ final class BatchTest {
       }
       out.write("0\r\n\r\n".getBytes(java.nio.charset.StandardCharsets.US_ASCII));
       out.flush();
+      assertEquals("{\"end\":true,\"complete\":true,\"answered\":3,\"replayed\":0}", answers.readLine());
       assertEquals(null, answers.readLine());
     }
   }

@@ -77,12 +77,18 @@ final class NdjsonStreamTest {
         }
         assertTrue(chunked, "the answer is streamed, not buffered whole: " + headers);
         BufferedReader reader = new BufferedReader(new InputStreamReader(new ChunkedReader(in), StandardCharsets.UTF_8));
+        String trailer = null;
         for (String line; (line = reader.readLine()) != null; ) {
+          if (count == CALLS) {
+            trailer = line;
+            continue;
+          }
           String prefix = "{\"id\":" + count + ",\"ok\":true,";
           String got = line;
           assertTrue(got.startsWith(prefix), () -> "line in order with its id: " + got);
           count++;
         }
+        assertEquals("{\"end\":true,\"complete\":true,\"answered\":" + CALLS + ",\"replayed\":0}", trailer);
         sender.join();
       }
       inputBytes = body.bytes;

@@ -63,7 +63,7 @@ final class OpenApiTest {
         assertTrue(r.getContent() != null && !r.getContent().isEmpty(), where + " " + status + " has content");
         r.getContent().forEach((type, media) -> assertNotNull(media.getSchema(), where + " " + status + " " + type));
       });
-      if (method == io.swagger.v3.oas.models.PathItem.HttpMethod.POST && !path.endsWith("/reload")) {
+      if (method == io.swagger.v3.oas.models.PathItem.HttpMethod.POST && !path.endsWith("/reload") && !path.equals("/v1/admin/audit")) {
         assertNotNull(op.getRequestBody(), where + " has a request body");
         io.swagger.v3.oas.models.media.Schema<?> body = op.getRequestBody().getContent().get("application/json").getSchema();
         assertTrue(body.get$ref() != null || (body.getProperties() != null && !body.getProperties().isEmpty()),
