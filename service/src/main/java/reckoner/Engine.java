@@ -61,6 +61,11 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
         retention);
   }
 
+  /** The tools and their specs over the settings' fact sets and collections, without a ledger: for the audit of an export. */
+  static ToolCatalog catalogOnly(ServiceConfig config, JsonMapper json) {
+    return ToolCatalog.of(ToolRegistry.of(Tools.standard(openFacts(config), openSearch(config))), new SpecLoader(json));
+  }
+
   /** The ledger store the settings name, its schema created or migrated. */
   static LedgerStore openLedger(ServiceConfig config) {
     try {

@@ -25,7 +25,7 @@ import reckoner.splice.OnError;
 /** The command line: {@code reckoner serve} and {@code reckoner fill}. Wiring only. */
 @Command(name = "reckoner", mixinStandardHelpOptions = true, version = "reckoner " + Service.VERSION,
     description = "Deterministic, versioned tools for language-model agents.",
-    subcommands = {Main.Serve.class, Main.Fill.class, Main.Key.class})
+    subcommands = {Main.Serve.class, Main.Fill.class, Main.Key.class, Main.AuditCommand.class})
 public final class Main implements Runnable {
   public static void main(String[] args) {
     int code = commandLine().execute(args);
@@ -38,6 +38,7 @@ public final class Main implements Runnable {
     CommandLine line = new CommandLine(new Main());
     SettingFlags.addTo(line.getSubcommands().get("serve").getCommandSpec(), true);
     SettingFlags.addTo(line.getSubcommands().get("fill").getCommandSpec(), false);
+    SettingFlags.addTo(line.getSubcommands().get("audit").getCommandSpec(), false);
     return line;
   }
 
@@ -183,6 +184,106 @@ public final class Main implements Runnable {
       System.out.println(key.line());
       System.err.println("secret for key '" + id + "' (shown once, stored nowhere): " + key.secret());
       return 0;
+    }
+  }
+
+  @Command(name = "audit", mixinStandardHelpOptions = true,
+      description = {"Run recorded calls again on this build and report every answer that differs, byte for byte.",
+          "Reads a ledger export (--input, NDJSON as GET /v1/invocations/export writes it) or the ledger the settings name",
+          "(narrowed by --run, --tool, --since, --until, --key). Each call runs with the reference time it was recorded with;",
+          "a call whose data version is no longer loaded is reported as not checkable, never as passing.",
+          "Exit code: 0 when nothing differs, 1 when something does, 2 on a usage error."})
+  static final class AuditCommand implements Callable<Integer> {
+    @Spec CommandSpec spec;
+
+    @Option(names = "--config", description = "A properties file of settings (same names as the flags, without --).")
+    Path configFile;
+
+    @Option(names = "--input", description = "A ledger export (NDJSON); without it, the ledger the settings name.")
+    Path input;
+
+    @Option(names = "--output", description = "Where to write the report (JSON); default: standard output.")
+    Path output;
+
+    @Option(names = "--run", description = "Only this run's records (ledger only).")
+    String run;
+
+    @Option(names = "--tool", description = "Only this tool's records (ledger only).")
+    String tool;
+
+    @Option(names = "--since", description = "Only records at or after this ISO 8601 instant (ledger only).")
+    String since;
+
+    @Option(names = "--until", description = "Only records before this ISO 8601 instant (ledger only).")
+    String until;
+
+    @Option(names = "--key", description = "Only this API key's records (ledger only).")
+    String key;
+
+    @Override
+    public Integer call() throws Exception {
+      ServiceConfig config;
+      try {
+        config = SettingFlags.resolve(spec, configFile, System.getenv());
+      } catch (ConfigException e) {
+        System.err.println("reckoner: " + e.getMessage());
+        return 2;
+      }
+      tools.jackson.databind.json.JsonMapper json = Json.newMapper();
+      reckoner.audit.Audit audit;
+      PrintStream err = new PrintStream(System.err, true, StandardCharsets.UTF_8);
+      if (input != null) {
+        if (!Files.isRegularFile(input)) {
+          err.println("reckoner: no such input file: " + input);
+          return 2;
+        }
+        audit = new reckoner.audit.Audit(Engine.catalogOnly(config, json), json);
+        try (java.io.BufferedReader r = Files.newBufferedReader(input, StandardCharsets.UTF_8)) {
+          for (String line; (line = r.readLine()) != null; ) {
+            if (!line.isBlank()) {
+              audit.check(reckoner.audit.AuditReports.fromExportLine(line, json));
+            }
+          }
+        }
+      } else {
+        audit = new reckoner.audit.Audit(Engine.catalogOnly(config, json), json);
+        java.util.Map<String, java.util.List<String>> params = new java.util.LinkedHashMap<>();
+        putParam(params, "run", run);
+        putParam(params, "tool", tool);
+        putParam(params, "since", since);
+        putParam(params, "until", until);
+        reckoner.ledger.InvocationQuery query;
+        try {
+          query = reckoner.ledger.InvocationQuery.fromParameters(key == null ? reckoner.ledger.InvocationQuery.Scope.all()
+              : reckoner.ledger.InvocationQuery.Scope.key(key), params);
+        } catch (reckoner.tool.ToolException e) {
+          err.println("reckoner: " + e.error().detail());
+          return 2;
+        }
+        try (reckoner.ledger.LedgerStore store = Engine.openLedger(config)) {
+          reckoner.audit.Audit a = audit;
+          store.forEach(query, a::check);
+        } catch (ConfigException e) {
+          err.println("reckoner: " + e.getMessage());
+          return 2;
+        }
+      }
+      tools.jackson.databind.node.ObjectNode report = reckoner.audit.AuditReports.toJson(audit.report(), Service.VERSION, json);
+      if (output == null) {
+        System.out.println(json.writeValueAsString(report));
+      } else {
+        Files.writeString(output, json.writeValueAsString(report) + "\n", StandardCharsets.UTF_8);
+      }
+      reckoner.audit.Audit.Report r = audit.report();
+      err.printf(java.util.Locale.ROOT, "audited %d records: %d the same, %d different, %d not checkable%n", r.records(), r.same(),
+          r.different(), r.notCheckable());
+      return r.different() == 0 ? 0 : 1;
+    }
+
+    private static void putParam(java.util.Map<String, java.util.List<String>> params, String name, String value) {
+      if (value != null) {
+        params.put(name, java.util.List.of(value));
+      }
     }
   }
 }

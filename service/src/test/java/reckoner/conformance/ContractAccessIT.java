@@ -107,7 +107,8 @@ final class ContractAccessIT {
         "POST /v1/fill", new String[] {"application/json", "{\"document\":\"<:arith(1):>\"}"},
         "POST /v1/admin/facts/reload", new String[] {null, null},
         "POST /v1/admin/keys/reload", new String[] {null, null},
-        "POST /v1/admin/search/reload", new String[] {null, null});
+        "POST /v1/admin/search/reload", new String[] {null, null},
+        "POST /v1/admin/audit", new String[] {null, null});
     if (method.equals("GET")) {
       return new String[] {null, null};
     }
