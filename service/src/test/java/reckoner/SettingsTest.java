@@ -66,6 +66,7 @@ final class SettingsTest {
     trial("search-poll-ms", "750");
     trial("search-index-dir", "trial-index");
     trial("search-memory-chars", "1000");
+    trial("access-log", "false");
     trial("keys-file", "trial-keys.jsonl", "host", "0.0.0.0");
     trial("keys-poll-ms", "500");
     trial("rate-burst-seconds", "2.5");
