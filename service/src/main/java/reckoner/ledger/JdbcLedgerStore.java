@@ -202,6 +202,7 @@ abstract class JdbcLedgerStore implements LedgerStore {
       return inWriteTransaction(c -> {
         prepareNames(c, invocations);
         long inserted = 0;
+        boolean uncounted = false;
         if (whole > 0) {
           try (PreparedStatement ps = c.prepareStatement(insert(per))) {
             for (int k = 0; k < whole; k++) {
@@ -211,9 +212,10 @@ abstract class JdbcLedgerStore implements LedgerStore {
               ps.addBatch();
             }
             for (int n : ps.executeBatch()) {
-              // A driver may answer SUCCESS_NO_INFO (-2) for a batched statement; its rows are then taken as
-              // written (PostgreSQL's conflict clause names the whole id, so it only ever skips a replay).
+              // A driver may answer SUCCESS_NO_INFO (-2) for a batched statement (PostgreSQL's rewritten
+              // batches do): its rows are taken as written, and checked below when a record has an idempotency key.
               inserted += n >= 0 ? n : per;
+              uncounted |= n < 0;
             }
           }
         }
@@ -227,6 +229,10 @@ abstract class JdbcLedgerStore implements LedgerStore {
         }
         if (inserted < invocations.size()) {
           return checkReplayed(c, invocations);
+        }
+        if (uncounted) { // only a record with an idempotency key can have been skipped unseen
+          List<Invocation> keyed = invocations.stream().filter(i -> i.idempotencyKey() != null).toList();
+          return keyed.isEmpty() ? java.util.Set.<String>of() : checkReplayed(c, keyed);
         }
         return java.util.Set.<String>of();
       });
