@@ -302,16 +302,15 @@ final class BatchRoutes {
         }
       }
     } finally {
-      if (refusedWhole) {
-        return; // the refusal is the whole answer (the exception mapper writes it)
+      if (!refusedWhole) { // a refusal before the first answer is the whole answer (the exception mapper writes it)
+        if (writer == null) { // nothing was read: the trailer alone
+          Thread w = new Thread(() -> stream.writeInOrder(end, out), "reckoner-batch-writer");
+          w.start();
+          writer = w;
+        }
+        window.put(end);
+        writer.join();
       }
-      if (writer == null) { // nothing was read: the trailer alone
-        Thread w = new Thread(() -> stream.writeInOrder(end, out), "reckoner-batch-writer");
-        w.start();
-        writer = w;
-      }
-      window.put(end);
-      writer.join();
     }
     if (stream.storeFailed && ending.complete()) {
       ending = new Ending(false, "ledger_unavailable", "the ledger stopped taking records; lines answered unavailable were not "

@@ -38,6 +38,9 @@ final class SpliceRoutes {
 
   /** The records an earlier attempt of this request made, by position, when it carries a key; checked for content. */
   private static Filler.Replay replay(Map<String, reckoner.ledger.Invocation> before, Filler.Tags tags) {
+    if (tags.idempotencyKey() == null || before.isEmpty()) {
+      return Filler.Replay.NONE;
+    }
     return position -> java.util.Optional.ofNullable(before.get(tags.idempotencyKeyAt(position)))
         .map(inv -> new reckoner.call.Recorded(inv.toOutcome(), java.util.concurrent.CompletableFuture.completedFuture(null)));
   }
