@@ -78,7 +78,8 @@ final class InvocationTest {
     assertEquals("{\"id\":\"" + id(1, 0) + "\",\"ts\":\"2031-05-17T09:30:00.001Z\",\"key_id\":\"key-heron\","
         + "\"run\":\"orchard-survey-7\",\"ref\":\"plot-12:\\\"row\\\"\\n3\",\"tool\":\"arith\",\"version\":1,"
         + "\"args\":{\"expr\":\"1250/4000\",\"places\":2,\"rounding\":\"half_even\"},\"text\":\"0.31\",\"outcome\":\"ok\","
-        + "\"cached\":true,\"elapsed_us\":42,\"data_version\":\"sha256:0f1e\",\"as_of\":\"2031-05-17\"}", inv.toJson());
+        + "\"cached\":true,\"elapsed_us\":42,\"data_version\":\"sha256:0f1e\",\"as_of\":\"2031-05-17\","
+        + "\"idempotency_key\":null}", inv.toJson());
   }
 
   /** Escapes as RFC 8259, section 7 requires; Jackson, a general-purpose parser, reads them back. */
