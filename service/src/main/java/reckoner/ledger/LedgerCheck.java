@@ -50,12 +50,17 @@ public final class LedgerCheck {
   }
 
   /**
-   * Checks {@code file} (opened as the service opens it, so a WAL left by a crash is recovered first) for
-   * integrity and for each of {@code ids}.
+   * Checks {@code file} (opened as the service opens it, so a WAL left by a crash is recovered first,
+   * and records a crash left in the intake log beside it are moved in first) for integrity and for
+   * each of {@code ids}.
    */
   public static Report check(Path file, Collection<String> ids) throws SQLException {
     if (!Files.isRegularFile(file)) {
       throw new SQLException("no ledger file at " + file);
+    }
+    Path dir = file.toAbsolutePath().getParent();
+    if (file.getFileName().toString().equals(SqliteLedgerStore.FILE_NAME)) {
+      IntakeLedgerStore.recover(dir);
     }
     try (Connection c = DriverManager.getConnection("jdbc:sqlite:" + file.toAbsolutePath())) {
       StringBuilder integrity = new StringBuilder();

@@ -23,13 +23,14 @@ public interface LedgerStore extends AutoCloseable {
   }
 
   /**
-   * Opens the ledger file {@code ledger.db} in {@code dataDir}. With {@code syncEveryCommit} a
-   * committed record survives power loss; without it, it survives a crash of the process (the
-   * operating system still has it) but not of the machine, and commits are cheaper.
+   * Opens the ledger file {@code ledger.db} in {@code dataDir}, with its intake log
+   * ({@code ledger.intake/}, see {@link IntakeLedgerStore}): a commit is one write to the log,
+   * and the records move into the file in bulk. With {@code syncEveryCommit} a committed record
+   * survives power loss; without it, it survives a crash of the process (the operating system
+   * still has it) but not of the machine, and commits are cheaper.
    */
   static LedgerStore sqlite(Path dataDir, boolean syncEveryCommit) {
-    return SqliteLedgerStore.open(dataDir.resolve(SqliteLedgerStore.FILE_NAME),
-        syncEveryCommit ? SqliteLedgerStore.Sync.FULL : SqliteLedgerStore.Sync.NORMAL);
+    return IntakeLedgerStore.open(dataDir, syncEveryCommit);
   }
 
   /**

@@ -35,6 +35,11 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
     return LedgerStore.sqlite(dir);
   }
 
+  /** The SQLite file underneath the intake log: the tests of the file's own layout write and read it directly. */
+  private SqliteLedgerStore sqlite() {
+    return ((IntakeLedgerStore) store).sqlite();
+  }
+
   private Connection raw() throws Exception {
     return DriverManager.getConnection("jdbc:sqlite:" + dir.resolve("ledger.db"));
   }
@@ -56,7 +61,7 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
         assertFalse(rs.next());
       }
     }
-    assertEquals(4, ((SqliteLedgerStore) store).schemaVersion());
+    assertEquals(4, sqlite().schemaVersion());
   }
 
   @Test
@@ -83,7 +88,7 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
   void idColumns_areTheRowidAndTheLowHalf_andTheViewShowsTextIdAndTime() throws Exception {
     Invocation one = call(0, 0, HERON).build();
     Invocation two = call(1500, 7, HERON).build();
-    store.append(List.of(one, two));
+    sqlite().append(List.of(one, two));
     try (Connection c = raw(); Statement st = c.createStatement();
          ResultSet rs = st.executeQuery("SELECT seq, id_lo, rowid FROM invocations ORDER BY rowid")) {
       rs.next();
@@ -133,7 +138,7 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
    */
   @Test
   void open_versionTwoFile_numbersTheNamesAndKeepsEveryRecord() throws Exception {
-    SqliteLedgerStore current = (SqliteLedgerStore) store;
+    SqliteLedgerStore current = sqlite();
     List<List<String>> steps = current.migrations();
     removeLedger();
     List<Invocation> records = new ArrayList<>(sample());
@@ -181,12 +186,12 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
   @Test
   void append_failedBatchWithNewNames_leavesNoNumberBehind() throws Exception {
     Invocation first = call(0, 0, HERON).build();
-    store.append(List.of(first));
+    sqlite().append(List.of(first));
     UUID id = UUID.fromString(first.id());
     String clash = new UUID(id.getMostSignificantBits(), id.getLeastSignificantBits() + 1).toString();
     Invocation other = Invocation.builder(clash).keyId("key-wren").tool("arith").text("0.5").build();
     Invocation fresh = call(5, 0, HERON).run("orchard-survey-9").tool("dates").build();
-    assertThrows(IllegalStateException.class, () -> store.append(List.of(fresh, other)));
+    assertThrows(IllegalStateException.class, () -> sqlite().append(List.of(fresh, other)));
     try (Connection c = raw(); Statement st = c.createStatement();
          ResultSet rs = st.executeQuery("SELECT count(*) FROM ledger_names WHERE name IN ('orchard-survey-9', 'key-wren', 'dates')")) {
       rs.next();
@@ -228,7 +233,7 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
   /** Opens the hand-written file, which migrates it, and finds every record in id order under the current schema. */
   private void reopenMigrated(List<Invocation> records) {
     store = LedgerStore.sqlite(dir);
-    assertEquals(4, ((SqliteLedgerStore) store).schemaVersion());
+    assertEquals(4, sqlite().schemaVersion());
     List<Invocation> expected = new ArrayList<>(records);
     expected.sort(BY_ID);
     assertEquals(expected, store.query(admin()).invocations());
@@ -280,11 +285,11 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
   @Test
   void append_differentIdWithSameHighHalf_failsAndKeepsNothingOfTheBatch() {
     Invocation first = call(0, 0, HERON).build();
-    store.append(List.of(first));
+    sqlite().append(List.of(first));
     UUID id = UUID.fromString(first.id());
     String clash = new UUID(id.getMostSignificantBits(), id.getLeastSignificantBits() + 1).toString();
     Invocation other = Invocation.builder(clash).keyId(HERON).tool("arith").text("0.5").build();
-    assertThrows(IllegalStateException.class, () -> store.append(List.of(call(5, 0, HERON).build(), other)));
+    assertThrows(IllegalStateException.class, () -> sqlite().append(List.of(call(5, 0, HERON).build(), other)));
     assertEquals(List.of(first.id()), idsOf(admin()));
   }
 
@@ -294,8 +299,8 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
     for (int i = 0; i < 500; i++) {
       many.add(call(i, 0, HERON).ref("plot-" + i + ":row-1").build());
     }
-    store.append(many);
-    ((SqliteLedgerStore) store).optimize();
+    sqlite().append(many);
+    sqlite().optimize();
     try (Connection c = raw(); Statement st = c.createStatement();
          ResultSet rs = st.executeQuery("SELECT count(*) FROM sqlite_stat1 WHERE idx = 'invocations_by_ref'")) {
       rs.next();
@@ -326,10 +331,10 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
   @ParameterizedTest
   @MethodSource("plans")
   void queryPlan_filter_usesItsIndexWithoutSorting(InvocationQuery q, String index) throws Exception {
-    Select select = Select.of((JdbcLedgerStore) store, q, 101);
+    Select select = Select.of(sqlite(), q, 101);
     String plan;
     try (Connection c = raw(); PreparedStatement ps = c.prepareStatement("EXPLAIN QUERY PLAN " + select.sql())) {
-      ((JdbcLedgerStore) store).bindAll(ps, select.parameters());
+      sqlite().bindAll(ps, select.parameters());
       StringBuilder sb = new StringBuilder();
       try (ResultSet rs = ps.executeQuery()) {
         while (rs.next()) {
@@ -350,9 +355,9 @@ final class SqliteLedgerStoreTest extends LedgerStoreContract {
 
   @Test
   void queryPlan_refPrefix_searchesTheRefIndex() throws Exception {
-    Select select = Select.of((JdbcLedgerStore) store, InvocationQuery.of(Scope.all()).withRefPrefix("plot-12:"), 101);
+    Select select = Select.of(sqlite(), InvocationQuery.of(Scope.all()).withRefPrefix("plot-12:"), 101);
     try (Connection c = raw(); PreparedStatement ps = c.prepareStatement("EXPLAIN QUERY PLAN " + select.sql())) {
-      ((JdbcLedgerStore) store).bindAll(ps, select.parameters());
+      sqlite().bindAll(ps, select.parameters());
       try (ResultSet rs = ps.executeQuery()) {
         List<String> details = new ArrayList<>();
         while (rs.next()) {
