@@ -12,6 +12,14 @@ import java.util.concurrent.CompletableFuture;
 public interface InvocationSink {
   CompletableFuture<Void> record(CallRequest request, Outcome outcome);
 
+  /**
+   * {@link #record}, for a caller that waits for the returned stage on this thread at once: the
+   * sink may do the recording's work on this thread instead of handing it to another.
+   */
+  default CompletableFuture<Void> recordHere(CallRequest request, Outcome outcome) {
+    return record(request, outcome);
+  }
+
   /** A sink that keeps nothing (tests, in-process baselines). */
   static InvocationSink none() {
     CompletableFuture<Void> done = CompletableFuture.completedFuture(null);

@@ -93,6 +93,16 @@ public final class Invoker {
   }
 
   /**
+   * {@link #call(CallRequest)} for a caller that waits for {@link Recorded#durable()} on this
+   * thread at once (one call over HTTP): the record may be committed on this thread (see
+   * {@link InvocationSink#recordHere}).
+   */
+  public Recorded callHere(CallRequest request) {
+    Outcome outcome = invoke(request);
+    return new Recorded(outcome, sink.recordHere(request, outcome));
+  }
+
+  /**
    * Runs one call, lets {@code review} replace its outcome (a caller that cannot use the answer
    * as it stands, such as a splice that would not read back), then records the reviewed outcome:
    * the ledger holds what the caller was given.

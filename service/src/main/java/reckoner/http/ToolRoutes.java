@@ -108,7 +108,7 @@ final class ToolRoutes {
 
   /** Runs the call and answers it; returns what was recorded, or null when the ledger could not take it. */
   private Recorded run(Context ctx, CallRequest request, boolean asText) {
-    Recorded recorded = invoker.call(request);
+    Recorded recorded = invoker.callHere(request); // the answer waits for its record right below
     Outcome outcome = recorded.outcome();
     metrics.record(outcome);
     if (request.idempotencyKey() != null && Durable.superseded(recorded.durable())) {

@@ -44,10 +44,20 @@ public final class LedgerSink implements InvocationSink {
 
   @Override
   public CompletableFuture<Void> record(CallRequest request, Outcome outcome) {
+    return record(request, outcome, false);
+  }
+
+  /** In {@code commit} mode the calling thread commits the record itself when no batch is being written. */
+  @Override
+  public CompletableFuture<Void> recordHere(CallRequest request, Outcome outcome) {
+    return record(request, outcome, true);
+  }
+
+  private CompletableFuture<Void> record(CallRequest request, Outcome outcome, boolean here) {
     Invocation invocation = Invocation.of(request, outcome, request.keyId() == null ? ANONYMOUS : request.keyId(),
         outcome.cached());
     if (durability == Durability.COMMIT) {
-      return writer.append(invocation);
+      return here ? writer.commitHere(invocation) : writer.append(invocation);
     }
     if (writer.offer(invocation)) {
       return DONE;

@@ -113,6 +113,8 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
   private final LinkedBlockingQueue<Entry> queue = new LinkedBlockingQueue<>();
   private final Semaphore room;
   private final Thread thread;
+  /** Held while a batch is written: by the writer thread, or by a caller committing its own record ({@link #commitHere}). */
+  private final java.util.concurrent.locks.ReentrantLock commitLock = new java.util.concurrent.locks.ReentrantLock();
   /** Async records kept through a failure, oldest first; touched by the writer thread only. */
   private final ArrayDeque<Entry> held = new ArrayDeque<>();
 
@@ -160,6 +162,54 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
    */
   public CompletableFuture<Void> append(Invocation invocation) {
     Objects.requireNonNull(invocation, "invocation");
+    CompletableFuture<Void> refused = admit();
+    if (refused != null) {
+      return refused;
+    }
+    Entry entry = new Entry(invocation, new CompletableFuture<>());
+    queue.add(entry);
+    return entry.done();
+  }
+
+  /**
+   * Durability {@code commit}, for a caller that waits for the returned future on this thread at
+   * once (one call answered over HTTP): when no batch is being written, this thread writes its
+   * record, with whatever else is queued, itself, and the future is complete when this returns;
+   * otherwise the record is queued as by {@link #append}. One call at a time thus costs one commit
+   * and no hand-off to the writer thread and back (each a wake-up of a sleeping thread).
+   */
+  public CompletableFuture<Void> commitHere(Invocation invocation) {
+    Objects.requireNonNull(invocation, "invocation");
+    CompletableFuture<Void> refused = admit();
+    if (refused != null) {
+      return refused;
+    }
+    Entry entry = new Entry(invocation, new CompletableFuture<>());
+    if (!commitLock.tryLock()) {
+      queue.add(entry);
+      return entry.done();
+    }
+    try {
+      List<Entry> batch = new ArrayList<>();
+      batch.add(entry);
+      queue.drainTo(batch, settings.maxBatch() - 1);
+      if (!write(batch)) {
+        for (Entry e : batch) {
+          if (e.done() == null) {
+            queue.add(e); // an async record goes back, for the writer thread to keep and retry
+          } else {
+            hold(e, null);
+          }
+        }
+      }
+    } finally {
+      commitLock.unlock();
+    }
+    return entry.done();
+  }
+
+  /** Null when a commit record may enter (room taken), else the refusal to return. */
+  private CompletableFuture<Void> admit() {
     if (closing) {
       return refuse(unavailable(Reason.CLOSED, "the ledger writer is closed", null));
     }
@@ -176,9 +226,7 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
       Thread.currentThread().interrupt();
       return refuse(unavailable(Reason.CLOSED, "interrupted while waiting for room in the ledger's queue", e));
     }
-    Entry entry = new Entry(invocation, new CompletableFuture<>());
-    queue.add(entry);
-    return entry.done();
+    return null;
   }
 
   /**
@@ -191,7 +239,7 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
    */
   public void commit(Invocation invocation, Duration timeout) {
     try {
-      append(invocation).get(timeout.toNanos(), TimeUnit.NANOSECONDS);
+      commitHere(invocation).get(timeout.toNanos(), TimeUnit.NANOSECONDS);
     } catch (ExecutionException e) {
       if (e.getCause() instanceof LedgerUnavailableException u) {
         throw u;
@@ -311,8 +359,15 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
         }
         batch.add(first);
       }
-      gather(batch);
-      if (write(batch)) {
+      boolean written;
+      commitLock.lock();
+      try {
+        gather(batch);
+        written = write(batch);
+      } finally {
+        commitLock.unlock();
+      }
+      if (written) {
         backoff = settings.minBackoff().toNanos();
         continue;
       }
@@ -370,10 +425,10 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
       return false;
     }
     long nanos = System.nanoTime() - start;
+    recovered(); // before the counters: whoever sees the records counted sees the writer healthy
     written.addAndGet(batch.size() - superseded.size());
     commits.incrementAndGet();
     commitNanos.addAndGet(nanos);
-    recovered();
     room.release(batch.size());
     for (Entry e : batch) {
       if (superseded.contains(e.invocation().id())) {
@@ -397,7 +452,7 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
   /** A commit record fails back to its caller; an async record is kept for the retry. */
   private void hold(Entry e, ArrayDeque<Entry> held) {
     if (e.done() == null) {
-      held.add(e);
+      held.add(e); // never reached with held null: only commit records come from commitHere
       return;
     }
     room.release();
@@ -484,7 +539,14 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
     // Records that raced with closing reach here after the thread has ended: one last try.
     List<Entry> left = new ArrayList<>();
     queue.drainTo(left);
-    if (!left.isEmpty() && !write(left)) {
+    boolean written;
+    commitLock.lock();
+    try {
+      written = left.isEmpty() || write(left);
+    } finally {
+      commitLock.unlock();
+    }
+    if (!written) {
       ArrayDeque<Entry> held = new ArrayDeque<>();
       left.forEach(e -> hold(e, held));
       abandon(held);
