@@ -113,6 +113,19 @@ final class LedgerWriterTest {
   }
 
   @Test
+  void offer_aBatchOfAsyncRecordsWaitsForCompany_aCommitEndsTheWait() throws Exception {
+    writer = LedgerWriter.start(store, FAST.withAsyncLinger(Duration.ofSeconds(5)), LedgerStats.CommitListener.none());
+    assertTrue(writer.offer(rec(0)));
+    Thread.sleep(30);
+    assertTrue(writer.offer(rec(1)));
+    long start = System.nanoTime();
+    writer.append(rec(2)).get(10, TimeUnit.SECONDS);
+    long waited = System.nanoTime() - start;
+    assertEquals(List.of(3), store.sizes()); // one commit for all three
+    assertTrue(waited < TimeUnit.SECONDS.toNanos(4), "the commit record did not wait out the async linger: " + waited);
+  }
+
+  @Test
   void append_queueFull_failsWithQueueFullAfterWaiting() throws Exception {
     store.hold();
     writer = LedgerWriter.start(store, FAST.withQueueCapacity(2), LedgerStats.CommitListener.none());
