@@ -8,8 +8,8 @@ final class Logs {
   private Logs() {}
 
   /**
-   * Stops the logging context: its asynchronous appender first writes every event it holds (up to
-   * its {@code maxFlushTime}). Call once, last, before the process exits; later events are dropped.
+   * Stops the logging context: its batching appender first writes every line it holds (waiting up to
+   * 5 s for a write in progress). Call once, last, before the process exits; later events are dropped.
    */
   static void flush() {
     if (LoggerFactory.getILoggerFactory() instanceof LoggerContext context) {
