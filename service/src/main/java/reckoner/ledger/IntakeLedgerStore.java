@@ -48,8 +48,14 @@ final class IntakeLedgerStore implements LedgerStore {
   static final Duration MOVE_DELAY = Duration.ofMillis(25);
   /** Records one move takes at most. */
   static final int MOVE_BATCH = 8_192;
-  /** Records committed but not yet in SQLite at most; past this, appends fail until SQLite catches up. */
+  /**
+   * Records committed but not yet in SQLite at most; past this, an append waits for the mover (up
+   * to {@link #BEHIND_WAIT}), which slows the writer and, behind it, the callers, instead of letting
+   * memory grow.
+   */
   static final int MAX_BEHIND = 262_144;
+  /** Longest an append waits for SQLite to catch up before it fails. */
+  static final Duration BEHIND_WAIT = Duration.ofSeconds(10);
   private static final Duration MIN_BACKOFF = Duration.ofMillis(50);
   private static final Duration MAX_BACKOFF = Duration.ofSeconds(2);
   /** How long close keeps trying to move what is left before leaving it to the next start. */
@@ -62,6 +68,7 @@ final class IntakeLedgerStore implements LedgerStore {
   private record Group(long segment, List<Invocation> records) {}
 
   private final SqliteLedgerStore sqlite;
+  private final int maxBehind;
   private final Intake intake;
   private final ReentrantLock appendLock = new ReentrantLock();
   private final ReentrantLock state = new ReentrantLock();
@@ -82,7 +89,8 @@ final class IntakeLedgerStore implements LedgerStore {
   private final Thread mover;
   private final Duration closeDeadline;
 
-  private IntakeLedgerStore(SqliteLedgerStore sqlite, Intake intake, Duration closeDeadline) {
+  private IntakeLedgerStore(SqliteLedgerStore sqlite, Intake intake, Duration closeDeadline, int maxBehind) {
+    this.maxBehind = maxBehind;
     this.sqlite = sqlite;
     this.intake = intake;
     this.closeDeadline = closeDeadline;
@@ -103,12 +111,17 @@ final class IntakeLedgerStore implements LedgerStore {
    * for close's attempts to move what is left (tests).
    */
   static IntakeLedgerStore open(Path dataDir, boolean sync, long segmentBytes, Duration closeDeadline) {
+    return open(dataDir, sync, segmentBytes, closeDeadline, MAX_BEHIND);
+  }
+
+  /** {@link #open(Path, boolean, long, Duration)} with at most {@code maxBehind} records on their way (tests). */
+  static IntakeLedgerStore open(Path dataDir, boolean sync, long segmentBytes, Duration closeDeadline, int maxBehind) {
     SqliteLedgerStore sqlite = SqliteLedgerStore.open(dataDir.resolve(SqliteLedgerStore.FILE_NAME),
         sync ? SqliteLedgerStore.Sync.FULL : SqliteLedgerStore.Sync.NORMAL);
     try {
       Path folder = dataDir.resolve(Intake.FOLDER);
       recover(sqlite, folder);
-      IntakeLedgerStore store = new IntakeLedgerStore(sqlite, Intake.open(folder, sync, segmentBytes), closeDeadline);
+      IntakeLedgerStore store = new IntakeLedgerStore(sqlite, Intake.open(folder, sync, segmentBytes), closeDeadline, maxBehind);
       store.mover.start();
       return store;
     } catch (IOException | RuntimeException e) {
@@ -165,9 +178,7 @@ final class IntakeLedgerStore implements LedgerStore {
       if (closing) {
         throw unavailable("the ledger is closed", null);
       }
-      if (behind() >= MAX_BEHIND) {
-        throw unavailable("the ledger file is " + behind() + " records behind its intake log", null);
-      }
+      awaitRoom();
       Set<String> superseded = takenKeys(invocations);
       List<Invocation> records = superseded.isEmpty() ? invocations
           : invocations.stream().filter(i -> !superseded.contains(i.id())).toList();
@@ -202,6 +213,31 @@ final class IntakeLedgerStore implements LedgerStore {
       return superseded;
     } finally {
       appendLock.unlock();
+    }
+  }
+
+  /** Waits until fewer than {@code maxBehind} records are on their way, or fails. */
+  private void awaitRoom() {
+    long deadline = System.nanoTime() + BEHIND_WAIT.toNanos();
+    state.lock();
+    try {
+      while (behind >= maxBehind && moveFailure == null && !closing) {
+        hurry = true;
+        work.signalAll();
+        long left = deadline - System.nanoTime();
+        if (left <= 0) {
+          break;
+        }
+        moved.awaitNanos(left);
+      }
+      if (behind >= maxBehind) {
+        throw unavailable("the ledger file is " + behind + " records behind its intake log", null);
+      }
+    } catch (InterruptedException e) {
+      Thread.currentThread().interrupt();
+      throw unavailable("interrupted while waiting for the ledger file to catch up", e);
+    } finally {
+      state.unlock();
     }
   }
 

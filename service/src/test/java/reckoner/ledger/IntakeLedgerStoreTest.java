@@ -70,6 +70,22 @@ final class IntakeLedgerStoreTest {
     assertEquals(List.of(), Intake.segments(folder())); // all in the file: the log is gone
   }
 
+  /** Commits faster than the file takes them: an append past the limit waits for the mover, it does not fail. */
+  @Test
+  void append_pastTheLimitOfRecordsOnTheirWay_waitsForTheMover() throws Exception {
+    IntakeLedgerStore store = IntakeLedgerStore.open(dir, false, Intake.SEGMENT_BYTES, java.time.Duration.ofSeconds(20), 2);
+    List<Invocation> all = records(0, 200);
+    try {
+      for (Invocation r : all) {
+        store.append(List.of(r)); // from the third on, each finds 2 on their way and waits
+      }
+      assertTrue(store.recordsBehind() <= 2, "at most the limit on their way: " + store.recordsBehind());
+      assertEquals(all, store.query(InvocationQuery.of(Scope.all()).withLimit(1000)).invocations());
+    } finally {
+      store.close();
+    }
+  }
+
   /** A segment written as a crashed process leaves it: its records go into the file at the next open, once each. */
   @Test
   void open_afterACrash_movesTheLogIntoTheFile_andDeletesIt() throws Exception {
