@@ -17,6 +17,10 @@ RUN apt-get update -qq && apt-get install -y -qq --no-install-recommends curl &&
  && mkdir -p /var/lib/reckoner/data /etc/reckoner/keys \
  && chown -R reckoner:reckoner /var/lib/reckoner
 COPY --from=build /src/service/target/reckoner.jar /opt/reckoner/reckoner.jar
+# A class-data archive of what a start and a few calls load (ops/class-archive.sh): a JVM of this
+# image maps it instead of loading those classes again, about 1.7 s less to ready on 2 cores.
+COPY ops/class-archive.sh /opt/reckoner/class-archive.sh
+RUN /opt/reckoner/class-archive.sh /opt/reckoner/reckoner.jar /opt/reckoner/reckoner.jsa
 USER reckoner
 WORKDIR /var/lib/reckoner
 # The data dir exists and belongs to the service's user before it becomes a volume, so a new
@@ -25,7 +29,10 @@ VOLUME ["/var/lib/reckoner/data"]
 EXPOSE 8080
 # Settings as RECKONER_* variables (README: Settings). The API keys file is mounted at
 # /etc/reckoner/keys/keys.jsonl (a Kubernetes Secret, or docker run -v ...:/etc/reckoner/keys:ro).
-ENV JAVA_TOOL_OPTIONS="-XX:MaxRAMPercentage=75 -XX:+ExitOnOutOfMemoryError" \
+# Heap: a third of the container's memory limit (256 MiB of the manifests' 768 MiB). Measured under
+# the mixed load of load-tests/open-load: the live heap after a full GC is about 60 MiB with a full
+# answer cache; the rest of the limit is for metaspace, code, threads, SQLite and Lucene's mapped files.
+ENV JAVA_TOOL_OPTIONS="-XX:MaxRAMPercentage=33 -XX:SharedArchiveFile=/opt/reckoner/reckoner.jsa -XX:+ExitOnOutOfMemoryError" \
     RECKONER_HOST=0.0.0.0 \
     RECKONER_PORT=8080 \
     RECKONER_DATA_DIR=/var/lib/reckoner/data \
