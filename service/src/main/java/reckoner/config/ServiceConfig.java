@@ -187,7 +187,7 @@ public record ServiceConfig(String host, int port, Path dataDir, long maxBodyByt
       new Setting("ledger-password", "", false, "PostgreSQL password (empty: from the URL)."),
       new Setting("ledger-pool-size", "8", false, "PostgreSQL connections at most."),
       new Setting("ledger-sync", "true", false,
-          "SQLite syncs every group commit to the disk (survives power loss); false: survives a crash of the process only."),
+          "SQLite: every group commit is on the disk (fdatasync) before its answers leave; false: no sync, a record survives a crash of the process but not of the machine (README: What survives a crash)."),
       new Setting("durability", "commit", false,
           "commit: an answer leaves after its record is committed; async: at once, 503 when the queue is full."),
       new Setting("ledger-queue", "65536", false, "Records queued for the ledger writer at most."),
