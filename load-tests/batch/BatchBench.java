@@ -136,7 +136,12 @@ public final class BatchBench {
       BufferedReader reader = new BufferedReader(new InputStreamReader(new Chunked(in), StandardCharsets.UTF_8), 1 << 16);
       long count = 0;
       long refused = 0;
+      String end = null;
       for (String line; (line = reader.readLine()) != null; ) {
+        if (line.startsWith("{\"end\":")) { // the stream's last line: how it ended (README: Batch)
+          end = line;
+          continue;
+        }
         count++;
         if (line.contains("\"code\":\"unavailable\"")) {
           refused++; // answered 503-style: the ledger could not take the record
@@ -146,8 +151,8 @@ public final class BatchBench {
         System.out.printf(Locale.ROOT, "  (%d of %d answers were 'unavailable': the ledger queue was full)%n", refused, count);
       }
       sender.join();
-      if (count != lines.size()) {
-        throw new IllegalStateException("answers: " + count + " of " + lines.size());
+      if (count != lines.size() || end == null || !end.contains("\"complete\":true")) {
+        throw new IllegalStateException("answers: " + count + " of " + lines.size() + ", end line: " + end);
       }
     }
     return System.nanoTime() - start;

@@ -31,14 +31,14 @@ for sync in true false; do
   dir=$(mktemp -d); p=$(port); pid=$(start "$dir" "$p" "$sync")
   url="http://127.0.0.1:$p/v1/tools/arith/1/invoke"
   wrk -t1 -c1 -d10s -s "$lua" "$url" >/dev/null # warm-up
-  strace -f -c -e trace=fsync,fdatasync -o "$dir/strace-count" -p "$pid" & st=$!
+  strace -f -c -e trace=fsync,fdatasync -o "$dir/strace-count" -p "$pid" 2>/dev/null & st=$!
   sleep 1
   out=$(wrk -t1 -c1 -d5s -s "$lua" "$url")
   sleep 0.5; kill -INT $st; wait $st 2>/dev/null || true
   reqs=$(echo "$out" | awk '/requests in/ {print $1}')
   syncs=$(awk '$NF=="fsync" || $NF=="fdatasync" {s += $4} END {print s + 0}' "$dir/strace-count")
   echo "ledger-sync=$sync: $reqs committed calls at one connection, $syncs fsync/fdatasync calls in all ($(python3 -c "print(round($syncs/$reqs, 2))") a call)"
-  strace -f -tt -e trace=fdatasync,fsync,write,writev -o "$dir/strace-order" -p "$pid" & st=$!
+  strace -f -tt -e trace=fdatasync,fsync,write,writev -o "$dir/strace-order" -p "$pid" 2>/dev/null & st=$!
   sleep 1
   curl -s -o /dev/null -H 'Content-Type: application/json' -H 'Accept: text/plain' -d '{"expr":"6*7"}' "$url"
   sleep 0.3; kill -INT $st; wait $st 2>/dev/null || true

@@ -26,6 +26,7 @@ import org.HdrHistogram.Recorder;
  * <pre>
  *   OpenLoad closed URL CONNECTIONS SECONDS            the peak: every connection sends back to back
  *   OpenLoad open URL RATE SECONDS [PID] [HGRM-FILE]   a constant rate, latencies corrected for coordinated omission
+ *                                                      (OPENLOAD_CONNECTIONS connections, default 16)
  *   OpenLoad check URL COUNT                           the first COUNT calls one by one: how each tool's calls are answered
  * </pre>
  *
@@ -133,7 +134,9 @@ public final class OpenLoad {
     Workload work = Workload.load();
     long total = (long) (rate * seconds);
     double period = 1e9 / rate;
-    int connections = 64; // enough that a 50 ms stall at this rate still finds a free one: 64 / rate seconds of slack
+    // Connections (threads) that send; each call waits for a free one, and that wait counts in its
+    // latency. More than the load needs only adds threads competing for the cores the server uses.
+    int connections = Integer.parseInt(System.getenv().getOrDefault("OPENLOAD_CONNECTIONS", "16"));
     AtomicLong next = new AtomicLong();
     Stats stats = new Stats();
     long start = System.nanoTime() + 100_000_000L;
