@@ -180,7 +180,11 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
     if (refused != null) {
       return refused;
     }
-    Entry entry = new Entry(invocation, new CompletableFuture<>());
+    return enqueue(new Entry(invocation, new CompletableFuture<>()));
+  }
+
+  /** Queues a commit record for the writer thread, waking it if it lingers over async records. */
+  private CompletableFuture<Void> enqueue(Entry entry) {
     queue.add(entry);
     wakeIfLingering();
     return entry.done();
@@ -201,9 +205,7 @@ public final class LedgerWriter implements LedgerStats, AutoCloseable {
     }
     Entry entry = new Entry(invocation, new CompletableFuture<>());
     if (!commitLock.tryLock()) {
-      queue.add(entry);
-      wakeIfLingering();
-      return entry.done();
+      return enqueue(entry);
     }
     try {
       List<Entry> batch = new ArrayList<>();
