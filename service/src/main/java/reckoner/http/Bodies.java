@@ -25,15 +25,24 @@ final class Bodies {
     return maxBytes;
   }
 
+  /**
+   * How much of a body that is too large is read and dropped before the refusal is sent. A server
+   * that closes a connection with request bytes unread makes the kernel reset it, and a client
+   * still sending can lose the 413 it was answered; reading on (up to this much) lets it arrive.
+   */
+  static final long DRAIN_BYTES = 8L << 20;
+
   /** The whole body, refusing more than the bound whether or not a Content-Length was sent. */
   byte[] read(Context ctx) {
     long declared = ctx.req().getContentLengthLong();
-    if (declared > maxBytes) {
-      throw tooLarge();
-    }
     try (InputStream in = ctx.req().getInputStream()) {
+      if (declared > maxBytes) {
+        drain(in, Math.min(declared, DRAIN_BYTES));
+        throw tooLarge();
+      }
       byte[] bytes = in.readNBytes((int) Math.min(Integer.MAX_VALUE - 8, maxBytes + 1));
       if (bytes.length > maxBytes) {
+        drain(in, DRAIN_BYTES);
         throw tooLarge();
       }
       return bytes;
@@ -70,6 +79,22 @@ final class Bodies {
     }
     String where = e.getLocation() == null ? "" : " (line " + e.getLocation().getLineNr() + ", column " + e.getLocation().getColumnNr() + ")";
     return MediaTypes.clip(m) + where;
+  }
+
+  /** Reads and drops up to {@code limit} bytes; a client that stops sending ends it early. */
+  private static void drain(InputStream in, long limit) {
+    byte[] sink = new byte[64 << 10];
+    try {
+      for (long left = limit; left > 0; ) {
+        int n = in.read(sink, 0, (int) Math.min(sink.length, left));
+        if (n < 0) {
+          return;
+        }
+        left -= n;
+      }
+    } catch (IOException e) {
+      // the client went away or stopped sending: the refusal is sent all the same
+    }
   }
 
   private ApiException tooLarge() {
