@@ -216,6 +216,17 @@ final class IntakeLedgerStore implements LedgerStore {
     }
   }
 
+  /** Wakes the mover to move what is on its way now, without its usual wait. */
+  private void hurryMover() {
+    state.lock();
+    try {
+      hurry = true;
+      work.signalAll();
+    } finally {
+      state.unlock();
+    }
+  }
+
   /** Waits until fewer than {@code maxBehind} records are on their way, or fails. */
   private void awaitRoom() {
     long deadline = System.nanoTime() + BEHIND_WAIT.toNanos();
@@ -563,13 +574,7 @@ final class IntakeLedgerStore implements LedgerStore {
     }
     sqlite.probe();
     if (moveFailure != null) {
-      state.lock();
-      try {
-        hurry = true;
-        work.signal();
-      } finally {
-        state.unlock();
-      }
+      hurryMover();
       long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(1);
       while (moveFailure != null && System.nanoTime() - deadline < 0) {
         java.util.concurrent.locks.LockSupport.parkNanos(TimeUnit.MILLISECONDS.toNanos(5));
@@ -611,13 +616,7 @@ final class IntakeLedgerStore implements LedgerStore {
     } finally {
       appendLock.unlock();
     }
-    state.lock();
-    try {
-      hurry = true;
-      work.signalAll();
-    } finally {
-      state.unlock();
-    }
+    hurryMover();
     try {
       mover.join(closeDeadline.plusSeconds(10).toMillis());
     } catch (InterruptedException e) {
