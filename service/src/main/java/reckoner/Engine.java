@@ -105,23 +105,8 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
    * {@code facts-dirs} entry (which must exist). A bad file stops the start, naming file and line.
    */
   static FactStore openFacts(ServiceConfig config) {
-    List<DataSource> sources = new ArrayList<>();
-    if (config.factsDemo()) {
-      sources.add(FactStore.demo());
-    }
-    Path own = config.dataDir().resolve("facts");
-    try {
-      Files.createDirectories(own); // always a source, so files dropped in later load on reload
-    } catch (java.io.IOException e) {
-      throw new ConfigException("data-dir: cannot create " + own + ": " + e.getMessage());
-    }
-    sources.add(DataSource.directory(own));
-    for (Path dir : config.factsDirs()) {
-      if (!Files.isDirectory(dir)) {
-        throw new ConfigException("facts-dirs: no such directory: " + dir);
-      }
-      sources.add(DataSource.directory(dir));
-    }
+    List<DataSource> sources = sources(config.factsDemo() ? FactStore.demo() : null, config.dataDir().resolve("facts"),
+        config.factsDirs(), "facts-dirs");
     try {
       return FactStore.open(sources, config.factsDefaultSet()); // the store logs each load itself
     } catch (DataLoadException e) {
@@ -137,23 +122,8 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
    * ServiceConfig#searchIndexPath()}. A bad file stops the start, naming file and line.
    */
   static SearchStore openSearch(ServiceConfig config) {
-    List<DataSource> sources = new ArrayList<>();
-    if (config.searchDemo()) {
-      sources.add(SearchStore.demo());
-    }
-    Path own = config.dataDir().resolve("search");
-    try {
-      Files.createDirectories(own); // always a source, so files dropped in later load on reload
-    } catch (java.io.IOException e) {
-      throw new ConfigException("data-dir: cannot create " + own + ": " + e.getMessage());
-    }
-    sources.add(DataSource.directory(own));
-    for (Path dir : config.searchDirs()) {
-      if (!Files.isDirectory(dir)) {
-        throw new ConfigException("search-dirs: no such directory: " + dir);
-      }
-      sources.add(DataSource.directory(dir));
-    }
+    List<DataSource> sources = sources(config.searchDemo() ? SearchStore.demo() : null, config.dataDir().resolve("search"),
+        config.searchDirs(), "search-dirs");
     SearchStore.Settings settings = new SearchStore.Settings(java.util.Optional.of(config.searchIndexPath()),
         config.searchMemoryChars());
     try {
@@ -163,6 +133,31 @@ record Engine(ToolCatalog catalog, AnswerCache cache, Invoker invoker, Markup ma
     } catch (IllegalArgumentException e) {
       throw new ConfigException("search-default-collection: " + e.getMessage());
     }
+  }
+
+  /**
+   * A data-backed family's sources: its demo (null when turned off), its own folder in the data dir
+   * (created if missing: always a source, so files dropped in later load on reload), and each of the
+   * setting's directories, which must exist.
+   */
+  private static List<DataSource> sources(DataSource demo, Path own, List<Path> dirs, String setting) {
+    List<DataSource> sources = new ArrayList<>();
+    if (demo != null) {
+      sources.add(demo);
+    }
+    try {
+      Files.createDirectories(own);
+    } catch (java.io.IOException e) {
+      throw new ConfigException("data-dir: cannot create " + own + ": " + e.getMessage());
+    }
+    sources.add(DataSource.directory(own));
+    for (Path dir : dirs) {
+      if (!Files.isDirectory(dir)) {
+        throw new ConfigException(setting + ": no such directory: " + dir);
+      }
+      sources.add(DataSource.directory(dir));
+    }
+    return sources;
   }
 
   /** Threads for parallel calls: the configured count, or one per core. */
